@@ -1,0 +1,163 @@
+/**
+ * Fast seeded standard normals: the ziggurat method (Marsaglia and Tsang, J. Stat. Softw. 5(8),
+ * 2000; 128 layers, their constants r = 3.442619855899 and v = 9.91256303526217e-3) driven by
+ * xoshiro128** (Blackman and Vigna, 2018) 32-bit uniforms seeded with SplitMix64.
+ *
+ * Each sample takes one 32-bit word: its low 7 bits choose the layer and its upper 25 bits give
+ * the signed abscissa, so layer and abscissa come from disjoint bits (the flaw Doornik, 2005,
+ * found in the original shared-bit scheme). The abscissa is a symmetric half-integer grid of
+ * 2^25 points per layer. Statistical checks (moments, KS) live in tests/unit/shared/core/rng.spec.ts.
+ */
+import { splitMix64Words } from './seed'
+
+const LAYERS = 128
+const SCALE = 16777216 // 2^24: magnitude range of the 25-bit signed abscissa
+const R = 3.442619855899
+const V = 9.91256303526217e-3
+const KN = new Float64Array(LAYERS)
+const WN = new Float64Array(LAYERS)
+const FN = new Float64Array(LAYERS)
+
+function buildTables(): void {
+  let dn = R
+  let tn = dn
+  const q = V / Math.exp(-0.5 * dn * dn)
+  KN[0] = (dn / q) * SCALE
+  KN[1] = 0
+  WN[0] = q / SCALE
+  WN[LAYERS - 1] = dn / SCALE
+  FN[0] = 1
+  FN[LAYERS - 1] = Math.exp(-0.5 * dn * dn)
+  for (let i = LAYERS - 2; i >= 1; i--) {
+    dn = Math.sqrt(-2 * Math.log(V / dn + Math.exp(-0.5 * dn * dn)))
+    KN[i + 1] = (dn / tn) * SCALE
+    tn = dn
+    FN[i] = Math.exp(-0.5 * dn * dn)
+    WN[i] = dn / SCALE
+  }
+}
+buildTables()
+
+const TWO_POW_M32 = 2.3283064365386963e-10
+
+/** A seeded generator of standard normal deviates with a bulk `fill`. Not thread-shared. */
+export class FastNormalGenerator {
+  private s0: number
+  private s1: number
+  private s2: number
+  private s3: number
+
+  /** @param seed any safe integer; the same seed always yields the same sequence */
+  constructor(seed: number) {
+    const w = splitMix64Words(seed, 4)
+    this.s0 = w[0]! | 0
+    this.s1 = w[1]! | 0
+    this.s2 = w[2]! | 0
+    this.s3 = w[3]! | 0
+  }
+
+  /** Next xoshiro128** output as a signed 32-bit integer. */
+  nextInt32(): number {
+    const s1 = this.s1
+    const m = Math.imul(s1, 5)
+    const result = Math.imul((m << 7) | (m >>> 25), 9)
+    const t = s1 << 9
+    this.s2 ^= this.s0
+    this.s3 ^= s1
+    this.s1 ^= this.s2
+    this.s0 ^= this.s3
+    this.s2 ^= t
+    this.s3 = (this.s3 << 11) | (this.s3 >>> 21)
+    return result
+  }
+
+  /** Uniform deviate in the open interval (0, 1). */
+  nextUniform(): number {
+    return ((this.nextInt32() >>> 0) + 0.5) * TWO_POW_M32
+  }
+
+  /** One standard normal deviate. */
+  next(): number {
+    const u = this.nextInt32()
+    const iz = u & 127
+    const j = (u >> 7) + 0.5
+    if (Math.abs(j) < KN[iz]!) {
+      return j * WN[iz]!
+    }
+    return this.slow(iz, j)
+  }
+
+  /**
+   * Fills out[start, end) with standard normals; identical to calling next() that many times.
+   * The xoshiro state is kept in locals for speed and written back before the rare slow path.
+   */
+  fill(out: Float64Array, start = 0, end = out.length): void {
+    let s0 = this.s0
+    let s1 = this.s1
+    let s2 = this.s2
+    let s3 = this.s3
+    for (let k = start; k < end; k++) {
+      const m = Math.imul(s1, 5)
+      const u = Math.imul((m << 7) | (m >>> 25), 9)
+      const t = s1 << 9
+      s2 ^= s0
+      s3 ^= s1
+      s1 ^= s2
+      s0 ^= s3
+      s2 ^= t
+      s3 = (s3 << 11) | (s3 >>> 21)
+      const iz = u & 127
+      const j = (u >> 7) + 0.5
+      if (Math.abs(j) < KN[iz]!) {
+        out[k] = j * WN[iz]!
+      } else {
+        this.s0 = s0
+        this.s1 = s1
+        this.s2 = s2
+        this.s3 = s3
+        out[k] = this.slow(iz, j)
+        s0 = this.s0
+        s1 = this.s1
+        s2 = this.s2
+        s3 = this.s3
+      }
+    }
+    this.s0 = s0
+    this.s1 = s1
+    this.s2 = s2
+    this.s3 = s3
+  }
+
+  /** Tail (layer 0) and wedge rejection steps of the ziggurat; loops until a sample is accepted. */
+  private slow(iz0: number, j0: number): number {
+    let iz = iz0
+    let j = j0
+    for (;;) {
+      if (iz === 0) {
+        return this.tail(j > 0)
+      }
+      const x = j * WN[iz]!
+      const y = FN[iz]! + this.nextUniform() * (FN[iz - 1]! - FN[iz]!)
+      if (y < Math.exp(-0.5 * x * x)) {
+        return x
+      }
+      const u = this.nextInt32()
+      iz = u & 127
+      j = (u >> 7) + 0.5
+      if (Math.abs(j) < KN[iz]!) {
+        return j * WN[iz]!
+      }
+    }
+  }
+
+  /** Marsaglia's exact sampler for the normal tail beyond R. */
+  private tail(positive: boolean): number {
+    let x: number
+    let y: number
+    do {
+      x = -Math.log(this.nextUniform()) / R
+      y = -Math.log(this.nextUniform())
+    } while (y + y < x * x)
+    return positive ? R + x : -R - x
+  }
+}

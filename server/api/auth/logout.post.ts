@@ -1,0 +1,4 @@
+export default defineApiHandler(async (event) => {
+  await endSession(event)
+  return { ok: true }
+})

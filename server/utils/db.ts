@@ -1,0 +1,28 @@
+import knex, { type Knex } from 'knex'
+import { knexConfig } from '../db/knexfile'
+
+let instance: Knex | undefined
+
+/** The lazily created Knex singleton for this server process (pool settings in knexfile.ts). */
+export function useDb(): Knex {
+  if (!instance) {
+    const { databaseUrl } = useRuntimeConfig()
+    instance = knex(knexConfig(databaseUrl))
+  }
+  return instance
+}
+
+/** Codes that mean "the database cannot be reached", as opposed to a bad query. */
+const UNAVAILABLE_CODES = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'PROTOCOL_CONNECTION_LOST',
+  'ER_CON_COUNT_ERROR', 'ER_SERVER_SHUTDOWN', 'ER_ACCESS_DENIED_ERROR', 'ER_BAD_DB_ERROR'
+])
+
+/** True when an error says the database is down or unreachable (→ 503, not 500). */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  if (!error || typeof error !== 'object') return false
+  const { code, name, message } = error as { code?: string, name?: string, message?: string }
+  if (code && UNAVAILABLE_CODES.has(code)) return true
+  if (name === 'KnexTimeoutError') return true
+  return typeof message === 'string' && /connect ECONNREFUSED|Connection lost|Timeout acquiring a connection/.test(message)
+}

@@ -1,0 +1,37 @@
+import type { Knex } from 'knex'
+import type { StudyDto } from '#shared/types/studies'
+
+interface StudyRow {
+  id: number
+  title: string
+  block_name: string | null
+  status: StudyDto['status']
+  spec: StudyDto['spec'] | string
+  version: number
+  owner_id: number
+  owner_name: string
+  created_at: Date
+  updated_at: Date
+}
+
+/** Studies of one team with their owner's name: every study query starts here. */
+export function teamStudies(db: Knex, teamId: number) {
+  return db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId)
+    .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.owner_id',
+      'u.display_name as owner_name', 's.created_at', 's.updated_at')
+}
+
+/** Row → API shape (JSON column parsed if the driver returned text). */
+export function toStudyDto(row: StudyRow): StudyDto {
+  return {
+    id: row.id,
+    title: row.title,
+    blockName: row.block_name,
+    status: row.status,
+    spec: typeof row.spec === 'string' ? JSON.parse(row.spec) : row.spec,
+    version: row.version,
+    owner: { id: row.owner_id, name: row.owner_name },
+    createdAt: row.created_at.toISOString(),
+    updatedAt: row.updated_at.toISOString()
+  }
+}

@@ -1,0 +1,24 @@
+import type { StudySpecDraft } from '../schemas/study'
+
+export const STUDY_STATUSES = ['draft', 'in_review', 'decided', 'archived'] as const
+export type StudyStatus = typeof STUDY_STATUSES[number]
+
+/** A study as the API returns it. */
+export interface StudyDto {
+  id: number
+  title: string
+  blockName: string | null
+  status: StudyStatus
+  spec: StudySpecDraft
+  version: number
+  owner: { id: number, name: string }
+  createdAt: string
+  updatedAt: string
+}
+
+export interface StudyPage {
+  items: StudyDto[]
+  page: number
+  pageSize: number
+  total: number
+}

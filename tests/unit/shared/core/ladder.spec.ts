@@ -2,18 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { ladderRoutOhm, ladderWeights, segmentedRoutOhm, segmentedWeights } from '#shared/core/solve/ladder'
 import { solveNodal } from '../../../support/dense-nodal'
 import type { Resistor } from '../../../support/dense-nodal'
-
-/** Small deterministic PRNG for test circuits (mulberry32). */
-function prng(seed: number): () => number {
-  let s = seed >>> 0
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0
-    let t = s
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+import { prng } from '../../../support/random-circuits'
 
 function mismatched(rand: () => number, n: number, ohm: number, spread: number): number[] {
   return Array.from({ length: n }, () => ohm * (1 + spread * (2 * rand() - 1)))

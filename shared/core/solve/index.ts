@@ -1,0 +1,67 @@
+/**
+ * Entry point of the exact solver: `solveCircuit(input)` → the fixed solve contract.
+ * Inputs are assumed valid (parse them with `solveInputSchema` first).
+ */
+import type { SolveCode, SolveInput, SolveOutput } from '../contract/solve'
+import { solveR2rCurrent, solveR2rVoltage } from './r2r'
+import { solveSegmented } from './segmented'
+import { solveString, solveTwoStage } from './string'
+import type { CircuitSolution } from './types'
+
+export type { CircuitSolution } from './types'
+
+/** Exact nodal solution of every code as typed arrays (the fast path for internal callers). */
+export function solveCircuitArrays(input: SolveInput): CircuitSolution {
+  switch (input.topology) {
+    case 'string': return solveString(input)
+    case 'r2r-voltage': return solveR2rVoltage(input)
+    case 'r2r-current': return solveR2rCurrent(input)
+    case 'segmented': return solveSegmented(input)
+    case 'two-stage-string': return solveTwoStage(input)
+  }
+}
+
+function finiteOrNull(x: number): number | null {
+  return Number.isFinite(x) ? x : null
+}
+
+function extremes(a: Float64Array): { min: number, max: number } {
+  let min = Infinity
+  let max = -Infinity
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i] as number
+    if (x < min) min = x
+    if (x > max) max = x
+  }
+  return { min, max }
+}
+
+/**
+ * Solves one circuit exactly for every code 0 … 2^N − 1 and returns the contract output:
+ * per code `voutV` (voltage mode) or `ioutA` (current mode), `irefA` (A drawn from V_REF) and
+ * `routOhm` (Thevenin resistance at the output, `null` where infinite), plus a summary.
+ */
+export function solveCircuit(input: SolveInput): SolveOutput {
+  const sol = solveCircuitArrays(input)
+  const key = sol.output === 'voltage' ? 'voutV' : 'ioutA'
+  const codes: SolveCode[] = new Array(sol.value.length)
+  for (let k = 0; k < sol.value.length; k++) {
+    codes[k] = { code: k, [key]: sol.value[k] as number, irefA: sol.irefA[k] as number, routOhm: finiteOrNull(sol.routOhm[k] as number) }
+  }
+  const iref = extremes(sol.irefA)
+  const rout = extremes(sol.routOhm)
+  return {
+    topology: input.topology,
+    bits: input.bits,
+    vrefV: input.vrefV,
+    output: sol.output,
+    codes,
+    summary: {
+      irefMinA: iref.min,
+      irefMaxA: iref.max,
+      rinMinOhm: finiteOrNull(input.vrefV / iref.max),
+      routMinOhm: finiteOrNull(rout.min),
+      routMaxOhm: finiteOrNull(rout.max)
+    }
+  }
+}

@@ -32,7 +32,7 @@ export function splitMix64Words(seed: number, count: number): Uint32Array {
       out[i + 1] = Number(z >> 32n)
     }
   }
-  if (out.every((w) => w === 0)) {
+  if (out.every(w => w === 0)) {
     out[0] = 1
   }
   return out

@@ -1,0 +1,41 @@
+/**
+ * Builders of ladder circuits: R-2R (voltage and current mode) and segmented (MODELS.md §2.2–2.4).
+ * Legs and termination are 2R (two units), series and joint resistors R (one unit).
+ */
+import type { R2rCurrentInput, R2rVoltageInput, SegmentedInput } from '../contract/solve'
+import type { BuildOptions } from './types'
+import { unitDrawer } from './units'
+
+/**
+ * R-2R ladder of `bits` legs: 3N + 1 units (N legs of 2, N − 1 series of 1, termination of 2).
+ * Draw order: legs MSB→LSB, series, termination.
+ */
+export function buildR2r(
+  topology: 'r2r-voltage' | 'r2r-current',
+  bits: number,
+  o: BuildOptions
+): R2rVoltageInput | R2rCurrentInput {
+  const d = unitDrawer(o)
+  const legsOhm = d.elements(bits, 2)
+  const seriesOhm = d.elements(bits - 1, 1)
+  const terminationOhm = d.element(2)
+  return { topology, bits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0, legsOhm, seriesOhm, terminationOhm }
+}
+
+/**
+ * Canonical segmented DAC: 2^M − 1 unary 2R legs, a joint R, an L-bit R-2R section
+ * (2^{M+1} + 3L units). Draw order: unary legs, joint, ladder legs, series, termination.
+ */
+export function buildSegmented(bits: number, unaryBits: number, o: BuildOptions): SegmentedInput {
+  const d = unitDrawer(o)
+  const l = bits - unaryBits
+  const unaryLegsOhm = d.elements(2 ** unaryBits - 1, 2)
+  const jointOhm = d.element(1)
+  const legsOhm = d.elements(l, 2)
+  const seriesOhm = d.elements(l - 1, 1)
+  const terminationOhm = d.element(2)
+  return {
+    topology: 'segmented', bits, unaryBits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0,
+    unaryLegsOhm, jointOhm, legsOhm, seriesOhm, terminationOhm
+  }
+}

@@ -5,9 +5,15 @@ import { testDb } from '../support/db'
 import { api, DEMO, signIn } from '../support/http'
 
 let db: Knex
-beforeAll(() => { db = testDb() })
-afterEach(async () => { await db('sign_in_attempts').delete() })
-afterAll(async () => { await db.destroy() })
+beforeAll(() => {
+  db = testDb()
+})
+afterEach(async () => {
+  await db('sign_in_attempts').delete()
+})
+afterAll(async () => {
+  await db.destroy()
+})
 
 describe('sign-in', () => {
   it('signs in a demo user and reports the role and team in the session', async () => {

@@ -22,7 +22,9 @@ beforeAll(async () => {
   ;[otherTeamStudyId] = await db('studies').insert({ team_id: teamId, owner_id: userId, title: 'Other team secret study', spec: JSON.stringify(SPEC) })
   otherTeamCookie = await signIn(email, 'other-team-pass')
 })
-afterAll(async () => { await db.destroy() })
+afterAll(async () => {
+  await db.destroy()
+})
 
 async function studyCount(): Promise<number> {
   return Number((await db('studies').count({ n: '*' }))[0]!.n)

@@ -17,8 +17,11 @@ export async function startAppServer(databaseUrl: string, env: Record<string, st
     stdio: ['ignore', 'pipe', 'pipe']
   })
   let log = ''
-  child.stdout?.on('data', (d: Buffer) => { log += d.toString() })
-  child.stderr?.on('data', (d: Buffer) => { log += d.toString() })
+  const collect = (d: Buffer) => {
+    log += d.toString()
+  }
+  child.stdout?.on('data', collect)
+  child.stderr?.on('data', collect)
   const url = `http://127.0.0.1:${port}`
   const until = Date.now() + 30_000
   while (Date.now() < until) {

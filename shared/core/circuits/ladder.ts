@@ -16,9 +16,9 @@ export function buildR2r(
   o: BuildOptions
 ): R2rVoltageInput | R2rCurrentInput {
   const d = unitDrawer(o)
-  const legsOhm = d.elements(bits, 2)
+  const legsOhm = d.twoRs(bits)
   const seriesOhm = d.elements(bits - 1, 1)
-  const terminationOhm = d.element(2)
+  const terminationOhm = d.twoR()
   return { topology, bits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0, legsOhm, seriesOhm, terminationOhm }
 }
 
@@ -29,11 +29,11 @@ export function buildR2r(
 export function buildSegmented(bits: number, unaryBits: number, o: BuildOptions): SegmentedInput {
   const d = unitDrawer(o)
   const l = bits - unaryBits
-  const unaryLegsOhm = d.elements(2 ** unaryBits - 1, 2)
+  const unaryLegsOhm = d.twoRs(2 ** unaryBits - 1)
   const jointOhm = d.element(1)
-  const legsOhm = d.elements(l, 2)
+  const legsOhm = d.twoRs(l)
   const seriesOhm = d.elements(l - 1, 1)
-  const terminationOhm = d.element(2)
+  const terminationOhm = d.twoR()
   return {
     topology: 'segmented', bits, unaryBits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0,
     unaryLegsOhm, jointOhm, legsOhm, seriesOhm, terminationOhm

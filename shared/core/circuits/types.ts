@@ -5,8 +5,10 @@
  *
  * Unit convention (MODELS.md §3): every element is made of unit resistors, each drawn
  * independently as R_u (1 + σ_u z) with z standard normal: R = one unit, 2R = two units in
- * series. Draw order (for reproducible samples): elements in the order of the solve input's
- * arrays, MSB first, the two units of a 2R element one after the other.
+ * series (default, `twoR: 'two-units'`), or with `twoR: 'single-element'` one element of value
+ * 2R_u and relative σ_u (a unit-area device). Draw order (for reproducible samples): elements
+ * in the order of the solve input's arrays, MSB first, the two units of a 2R element one after
+ * the other.
  */
 import type { NormalSource } from '../stats/rng'
 
@@ -29,6 +31,8 @@ export interface BuildOptions {
   sigmaUnit?: number
   /** standard normal source, required when sigmaUnit > 0 (use a seeded one, never Math.random) */
   normal?: NormalSource
+  /** how 2R elements are made, default 'two-units' */
+  twoR?: 'two-units' | 'single-element'
   /** two-stage string: coarse unit (ohms), default unitOhm */
   coarseUnitOhm?: number
   /** two-stage string: fine unit (ohms), default unitOhm */

@@ -9,6 +9,10 @@ export interface UnitDrawer {
   element: (units: number, unitOhm?: number) => number
   /** `count` elements of `units` units each */
   elements: (count: number, units: number, unitOhm?: number) => number[]
+  /** one 2R element under the chosen construction */
+  twoR: () => number
+  /** `count` 2R elements */
+  twoRs: (count: number) => number[]
   /** one offset voltage (V): nominal + σ_os z */
   offset: (nominalV: number) => number
 }
@@ -27,9 +31,12 @@ export function unitDrawer(o: BuildOptions): UnitDrawer {
     for (let u = 0; u < units; u++) r += sigma > 0 ? unitOhm * (1 + sigma * z()) : unitOhm
     return r
   }
+  const twoR = (): number => (o.twoR === 'single-element' ? element(1, 2 * o.unitOhm) : element(2))
   return {
     element,
     elements: (count, units, unitOhm) => Array.from({ length: count }, () => element(units, unitOhm)),
+    twoR,
+    twoRs: count => Array.from({ length: count }, twoR),
     offset: nominalV => (sigmaOs > 0 ? nominalV + sigmaOs * z() : nominalV)
   }
 }

@@ -114,3 +114,19 @@ describe('buildCircuit', () => {
     expect(() => buildCircuit({ topology: 'r2r-voltage', bits: 4 }, { unitOhm: R, vrefV: 1, sigmaUnit: 0.01 })).toThrow(/normal source/)
   })
 })
+
+describe('buildCircuit with single-element 2R', () => {
+  it('draws each 2R as one element of relative σ_u (MODELS.md §3 alternative convention [D])', () => {
+    const normal = createNormalSource(5)
+    const sigma = 0.01
+    const legs: number[] = []
+    for (let s = 0; s < 4000; s++) {
+      const c = buildCircuit({ topology: 'r2r-current', bits: 4 }, { unitOhm: R, vrefV: 1, sigmaUnit: sigma, normal, twoR: 'single-element' })
+      if (c.topology !== 'r2r-current') throw new Error('unexpected topology')
+      legs.push(...c.legsOhm.map(r => r / (2 * R) - 1))
+    }
+    const sd = Math.sqrt(legs.reduce((s, v) => s + v * v, 0) / legs.length)
+    expect(sd / sigma).toBeGreaterThan(0.97)
+    expect(sd / sigma).toBeLessThan(1.03)
+  })
+})

@@ -14,11 +14,11 @@ import type { NormalSource } from '../stats/rng'
 
 export type StringDecode = 'direct' | 'tree'
 
-export type CircuitShape =
-  | { topology: 'string', bits: number, decode?: StringDecode }
-  | { topology: 'r2r-voltage' | 'r2r-current', bits: number }
-  | { topology: 'segmented', bits: number, unaryBits: number }
-  | { topology: 'two-stage-string', bits: number, coarseBits: number, buffered: boolean }
+export type CircuitShape
+  = | { topology: 'string', bits: number, decode?: StringDecode }
+    | { topology: 'r2r-voltage' | 'r2r-current', bits: number }
+    | { topology: 'segmented', bits: number, unaryBits: number }
+    | { topology: 'two-stage-string', bits: number, coarseBits: number, buffered: boolean }
 
 export interface BuildOptions {
   /** unit resistor value R (ohms); for two-stage strings the default of both strings */

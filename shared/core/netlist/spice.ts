@@ -37,11 +37,20 @@ const PROBE_A = 1e-3
 /** Emits the circuit; returns independent sources besides V_REF to zero for the R_out sweep. */
 function body(deck: Deck, c: SolveInput): string[] {
   switch (c.topology) {
-    case 'string': emitString(deck, c); return []
-    case 'r2r-voltage': emitR2rVoltage(deck, c); return []
-    case 'r2r-current': emitR2rCurrent(deck, c); return []
-    case 'segmented': emitSegmented(deck, c); return []
-    case 'two-stage-string': return emitTwoStage(deck, c)
+    case 'string':
+      emitString(deck, c)
+      return []
+    case 'r2r-voltage':
+      emitR2rVoltage(deck, c)
+      return []
+    case 'r2r-current':
+      emitR2rCurrent(deck, c)
+      return []
+    case 'segmented':
+      emitSegmented(deck, c)
+      return []
+    case 'two-stage-string':
+      return emitTwoStage(deck, c)
   }
 }
 

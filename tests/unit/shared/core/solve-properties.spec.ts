@@ -90,7 +90,9 @@ function groundReturn(c: Extract<SolveInput, { topology: 'r2r-voltage' }>, k: nu
   c.seriesOhm.forEach((r, i) => net.push({ a: `n${i}`, b: `n${i + 1}`, ohm: r }))
   net.push({ a: `n${c.bits - 1}`, b: 'gt', ohm: c.terminationOhm })
   const fixed: Record<string, number> = { ref: c.vrefV, gt: 0 }
-  c.legsOhm.forEach((_, i) => { if (!on(i)) fixed[`g${i}`] = 0 })
+  c.legsOhm.forEach((_, i) => {
+    if (!on(i)) fixed[`g${i}`] = 0
+  })
   const s = solveNodal(net, fixed)
   // current flowing into every ground-side terminal
   return -Object.keys(fixed).filter(n => n !== 'ref').reduce((acc, n) => acc + s.currentOut(n), 0)
@@ -123,7 +125,7 @@ describe('reference current symmetry', () => {
   })
 
   it('current mode: I_REF is the same for every code of any mismatched ladder (MODELS.md §2.3, CV27 generalised [D])', () => {
-    fc.assert(fc.property(ladderArb('r2r-current'), c => {
+    fc.assert(fc.property(ladderArb('r2r-current'), (c) => {
       const i = solveCircuit(c).codes.map(e => e.irefA)
       for (const x of i) expect(x).toBe(i[0])
     }), { numRuns: 50 })

@@ -1,5 +1,6 @@
 import type { H3Event, EventHandlerRequest } from 'h3'
 import type { z } from 'zod'
+import { formatIssues } from '#shared/core/contract/errors'
 
 export const MESSAGES = {
   databaseUnavailable: 'The database is unavailable; try again in a moment',
@@ -11,15 +12,6 @@ export const MESSAGES = {
   notFound: 'Not found',
   internal: 'Something went wrong on our side'
 } as const
-
-/** One issue per field, as the API's 400 responses carry them in `data.issues`. */
-export interface FieldIssue { path: string, message: string }
-
-/** Turns zod issues into field-named messages, e.g. "spec.bits: must be an integer from 2 to 16". */
-export function formatZodIssues(error: z.ZodError): { message: string, issues: FieldIssue[] } {
-  const issues = error.issues.map(i => ({ path: i.path.map(String).join('.') || '(body)', message: i.message }))
-  return { message: issues.map(i => `${i.path}: ${i.message}`).join('; '), issues }
-}
 
 /** Maps any thrown value to an h3 error: h3 errors pass, database outages → 503, the rest → 500. */
 export function toHttpError(error: unknown) {
@@ -37,9 +29,9 @@ function unavailable() {
   return createError({ statusCode: 503, statusMessage: MESSAGES.databaseUnavailable, data: { message: MESSAGES.databaseUnavailable } })
 }
 
-/** A 400 whose message names each invalid field and its allowed range. */
+/** A 400 whose message names each invalid field and its allowed range (the CLI prints the same). */
 export function badRequest(error: z.ZodError) {
-  const formatted = formatZodIssues(error)
+  const formatted = formatIssues(error)
   return createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message: formatted.message, data: formatted })
 }
 

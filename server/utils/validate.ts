@@ -7,7 +7,7 @@ export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S)
   try {
     body = await readBody(event)
   } catch {
-    throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message: '(body): must be valid JSON', data: { message: '(body): must be valid JSON', issues: [{ path: '(body)', message: 'must be valid JSON' }] } })
+    throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message: '(input): must be valid JSON', data: { message: '(input): must be valid JSON', issues: [{ path: '(input)', message: 'must be valid JSON' }] } })
   }
   return parseOr400(schema, body)
 }

@@ -19,7 +19,8 @@ beforeAll(async () => {
   const [teamId] = await db('teams').insert({ name: 'Other Works', slug: `other-${Date.now()}` })
   const email = `arch-${Date.now()}@other.example`
   const [userId] = await db('users').insert({ team_id: teamId, email, display_name: 'Other Architect', password_hash: await bcrypt.hash('other-team-pass', 4), role: 'architect' })
-  ;[otherTeamStudyId] = await db('studies').insert({ team_id: teamId, owner_id: userId, title: 'Other team secret study', spec: JSON.stringify(SPEC) })
+  const studyIds = await db('studies').insert({ team_id: teamId, owner_id: userId, title: 'Other team secret study', spec: JSON.stringify(SPEC) })
+  otherTeamStudyId = studyIds[0]!
   otherTeamCookie = await signIn(email, 'other-team-pass')
 })
 afterAll(async () => {
@@ -66,7 +67,7 @@ describe('studies API', () => {
     ['bits out of range', { title: 'ok', spec: { ...SPEC, bits: 40 } }, 'spec.bits'],
     ['a negative reference voltage', { title: 'ok', spec: { ...SPEC, vrefV: -1 } }, 'spec.vrefV'],
     ['a yield given as text', { title: 'ok', spec: { ...SPEC, yieldTarget: '0.99' } }, 'spec.yieldTarget'],
-    ['an unknown field', { title: 'ok', spec: SPEC, ownerId: 1 }, '(body)']
+    ['an unknown field', { title: 'ok', spec: SPEC, ownerId: 1 }, 'ownerId']
   ])('answers %s with 400 naming the field and writes nothing', async (_label, body, field) => {
     const before = await studyCount()
     const res = await api<{ data: { issues: { path: string, message: string }[] } }>('/api/studies', { method: 'POST', cookie: architect, body })

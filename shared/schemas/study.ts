@@ -12,6 +12,8 @@ export function rangedInteger(min: number, max: number, coerce = false) {
   return (coerce ? z.coerce.number({ error }) : z.number({ error })).int({ error }).min(min, { error }).max(max, { error })
 }
 
+const SPEC_FIELDS = ['bits', 'vrefV', 'updateRateHz', 'areaBudgetMm2', 'inlTargetLsb', 'dnlTargetLsb', 'yieldTarget']
+
 /** The first spec fields of a study (engine contract names, SI units). */
 export const studySpecDraftSchema = z.object({
   bits: rangedInteger(2, 16),
@@ -21,7 +23,11 @@ export const studySpecDraftSchema = z.object({
   inlTargetLsb: rangedNumber(0.01, 64, 'LSB'),
   dnlTargetLsb: rangedNumber(0.01, 0.999, 'LSB'),
   yieldTarget: rangedNumber(0.5, 0.999999)
-}, { error: 'is required: an object with bits, vrefV, updateRateHz, areaBudgetMm2, inlTargetLsb, dnlTargetLsb, yieldTarget' }).strict()
+}, {
+  error: iss => iss.code === 'unrecognized_keys'
+    ? `is not a spec field (allowed: ${SPEC_FIELDS.join(', ')})`
+    : `is required: an object with ${SPEC_FIELDS.join(', ')}`
+}).strict()
 
 const TITLE_ERROR = 'is required, 1 to 200 characters'
 

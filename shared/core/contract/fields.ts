@@ -22,9 +22,13 @@ interface IssueLike {
   input?: unknown
 }
 
-/** A zod error option whose message is `<rule> (got <value>)`. */
+/** A zod error option whose message is `<rule> (got <value>)`, or `is missing; it <rule>`. */
 export function says(rule: string): { error: (issue: IssueLike) => string } {
-  return { error: (issue: IssueLike) => `${rule} (got ${describeValue(issue.input)})` }
+  return {
+    error: (issue: IssueLike) => issue.input === undefined
+      ? `is missing; it ${rule}`
+      : `${rule} (got ${describeValue(issue.input)})`
+  }
 }
 
 /** Integer in [lo, hi]. */
@@ -52,7 +56,7 @@ export function finite(unit: string) {
 
 /** Array of positive finite values (ohms); the exact length is checked against `bits` later. */
 export function positiveArray(unit: string) {
-  const e = says(`must be an array of at most ${MAX_ARRAY_VALUES} values`)
+  const e = says(`must be an array of at most ${MAX_ARRAY_VALUES} positive values (${unit})`)
   return z.array(positive(unit), e).max(MAX_ARRAY_VALUES, e)
 }
 

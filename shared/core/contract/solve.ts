@@ -46,7 +46,7 @@ function expectLength(ctx: Ctx, path: string, values: unknown, expected: number,
 const ladderShape = {
   ...common,
   legsOhm: positiveArray('ohms'),
-  seriesOhm: z.array(positive('ohms'), says('must be an array')),
+  seriesOhm: positiveArray('ohms'),
   terminationOhm: positive('ohms')
 }
 

@@ -27,13 +27,14 @@ export function createDeck(): Deck {
   const lines: string[] = []
   const names = new Set<string>()
   return {
-    comment: text => lines.push(`* ${text}`),
+    // a comment must stay one line: a line break would let the text become a SPICE command
+    comment: text => lines.push(`* ${text.replace(/\p{Cc}/gu, ' ')}`),
     element: (name, nodes, value, comment) => {
       const key = name.toLowerCase()
       if (names.has(key)) throw new Error(`duplicate element name ${name}`)
       if (value.trim() === '') throw new Error(`element ${name} has no value`)
       names.add(key)
-      if (comment) lines.push(`* ${comment}`)
+      if (comment) lines.push(`* ${comment.replace(/\p{Cc}/gu, ' ')}`)
       lines.push(`${name} ${nodes.join(' ')} ${value}`)
     },
     raw: line => lines.push(line),

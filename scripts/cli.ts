@@ -1,0 +1,94 @@
+/**
+ * Command-line entry for batch use: `npm run --silent cli -- <command> <file.json|->`.
+ * Reads one JSON document (a file, or stdin for `-`), prints the JSON result on stdout.
+ * Exit codes: 0 success; 2 usage error or invalid input (message on stderr, naming the field
+ * and the allowed range); 1 unexpected internal error.
+ */
+import { readFileSync } from 'node:fs'
+import type { z } from 'zod'
+import { formatIssues } from '../shared/core/contract/errors'
+import { netlistInputSchema } from '../shared/core/contract/netlist'
+import { solveInputSchema } from '../shared/core/contract/solve'
+import { exportNetlist } from '../shared/core/netlist/export'
+import { solveCircuit } from '../shared/core/solve/index'
+
+const USAGE = `usage: npm run --silent cli -- <command> <file.json|-> [--pretty]
+commands:
+  solve     exact solve of one circuit (every code: voutV or ioutA, irefA, routOhm)
+  evaluate  trade-study evaluation of a spec
+  netlist   SPICE netlist of one circuit
+'-' reads the JSON document from stdin.`
+
+/** Input documents above this size are refused (a 16-bit string is well under 2 MB). */
+const MAX_INPUT_BYTES = 64 * 2 ** 20
+
+class UsageError extends Error {}
+
+interface Command {
+  schema: z.ZodType
+  run: (input: never) => unknown
+}
+
+const COMMANDS: Record<string, () => Promise<Command>> = {
+  solve: async () => ({ schema: solveInputSchema, run: solveCircuit }),
+  netlist: async () => ({ schema: netlistInputSchema, run: exportNetlist }),
+  evaluate: async () => {
+    throw new UsageError('evaluate: not available in this build yet (the evaluation engine is not wired into the CLI)')
+  }
+}
+
+function readInput(source: string): string {
+  const text = source === '-' ? readFileSync(0, 'utf8') : readFileSync(source, 'utf8')
+  if (Buffer.byteLength(text) > MAX_INPUT_BYTES) throw new UsageError(`input: must be at most ${MAX_INPUT_BYTES} bytes`)
+  return text
+}
+
+function parseJson(text: string): unknown {
+  try {
+    return JSON.parse(text)
+  } catch (e) {
+    throw new UsageError(`input: must be a JSON document (${(e as Error).message})`)
+  }
+}
+
+async function main(argv: string[]): Promise<number> {
+  const pretty = argv.includes('--pretty')
+  const args = argv.filter(a => a !== '--pretty')
+  const [name, source, ...extra] = args
+  const load = name === undefined ? undefined : COMMANDS[name]
+  if (!load || source === undefined || extra.length > 0) {
+    process.stderr.write(`${name && !load ? `unknown command: ${name}\n` : ''}${USAGE}\n`)
+    return 2
+  }
+  const command = await load()
+  let text: string
+  try {
+    text = readInput(source)
+  } catch (e) {
+    if (e instanceof UsageError) throw e
+    throw new UsageError(`input: cannot read ${source} (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`)
+  }
+  const parsed = command.schema.safeParse(parseJson(text))
+  if (!parsed.success) {
+    process.stderr.write(`${formatIssues(parsed.error).message}\n`)
+    return 2
+  }
+  const result = command.run(parsed.data as never)
+  process.stdout.write(`${JSON.stringify(result, null, pretty ? 2 : undefined)}\n`)
+  return 0
+}
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code
+  },
+  (e: unknown) => {
+    if (e instanceof UsageError) {
+      process.stderr.write(`${e.message}\n`)
+      process.exitCode = 2
+      return
+    }
+    process.stderr.write(`internal error: ${e instanceof Error ? e.message : String(e)}\n`)
+    process.exitCode = 1
+  }
+)

@@ -1,7 +1,8 @@
 /**
  * Runs a netlist in Debian's ngspice (batch mode) in a throwaway folder and reads back the
  * wrdata files. Pitfalls handled (ngspice 39): the exit code is 0 after `quit 0` even on errors,
- * so any stderr output counts as failure; results come from wrdata (15 digits), not .print.
+ * so any stderr output counts as failure (except the progress counter long sweeps print);
+ * results come from wrdata (15 digits), not .print.
  */
 import { spawnSync } from 'node:child_process'
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
@@ -23,6 +24,11 @@ export function parseWrdata(text: string): NgspiceTable {
   return { names, rows }
 }
 
+/** stderr without ngspice's progress counter of long sweeps ("Reference value : 2.15e+02"). */
+export function stderrErrors(stderr: string): string {
+  return stderr.replace(/Reference value\s*:\s*\S+/g, '').trim()
+}
+
 export interface NgspiceRun {
   files: Record<string, NgspiceTable>
   stdout: string
@@ -41,8 +47,8 @@ export function runNgspice(netlist: string, outputFiles: string[], timeoutMs = 6
     const r = spawnSync(NGSPICE, ['-b', 'deck.cir'], { cwd: dir, encoding: 'utf8', timeout: timeoutMs, maxBuffer: 256 * 2 ** 20 })
     const ms = performance.now() - t0
     if (r.error) throw r.error
-    if (r.status !== 0 || r.stderr.trim() !== '') {
-      throw new Error(`ngspice failed (exit ${r.status}): ${r.stderr.slice(0, 2000)}`)
+    if (r.status !== 0 || stderrErrors(r.stderr) !== '') {
+      throw new Error(`ngspice failed (exit ${r.status}): ${stderrErrors(r.stderr).slice(0, 2000)}`)
     }
     const files: Record<string, NgspiceTable> = {}
     for (const f of outputFiles) files[f] = parseWrdata(readFileSync(join(dir, f), 'utf8'))

@@ -16,6 +16,8 @@ export interface SpiceOptions {
   dcFile?: string
   /** results file of the output-resistance sweep (columns: code, R_out; current mode: code, G_out) */
   routFile?: string
+  /** replaces the default `.control` block body (lines between `.control` and `.endc`) */
+  controlLines?: string[]
 }
 
 export interface SpiceNetlist {
@@ -98,7 +100,13 @@ export function spiceNetlist(c: SolveInput, options: SpiceOptions = {}): SpiceNe
   const zeroed = body(deck, c)
   if (c.topology === 'r2r-current') deck.element('VOUTP', ['out', '0'], 'DC 0', 'output pin held at 0 V (virtual ground); its current is I_OUT')
   else deck.element('IPROBE', ['0', 'out'], 'DC 0', 'test current into the output, used only by the R_out sweep')
-  control(deck, c, files, zeroed)
+  if (options.controlLines) {
+    deck.raw('.control')
+    for (const line of options.controlLines) deck.raw(line)
+    deck.raw('.endc')
+  } else {
+    control(deck, c, files, zeroed)
+  }
   deck.raw('.end')
   const dcColumns = [c.topology === 'r2r-current' ? 'iout' : 'vout', 'iref']
   const routColumn = c.topology === 'r2r-current' ? 'gout' : 'rout'

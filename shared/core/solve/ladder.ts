@@ -5,40 +5,43 @@
  * a changeover switch that ends on an ideal source (V_REF or ground), so the conductance matrix
  * does not depend on the code and V_out / V_REF = Σ b_i w_i holds exactly, mismatch included.
  *
- * Method: the matrix is tridiagonal. Eliminating from the LSB end gives the conductance Y_i
- * looking from node i toward the LSB (Y_{N−1} = g_leg + g_term, Y_i = g_leg,i + g_s,i ∥ Y_{i+1}
- * in series form), then the first column of G⁻¹ follows by a chain of voltage dividers:
- * x_0 = 1/Y_0, x_{i+1} = x_i · g_s,i / (g_s,i + Y_{i+1}). Every step adds or multiplies positive
- * numbers, so there is no cancellation. w_i = x_i · g_leg,i (G is symmetric, so its first row
+ * Method: the matrix is tridiagonal. Eliminating from the LSB end gives the resistance Z_i
+ * looking from node i toward the LSB (Z_{N−1} = R_leg ∥ R_term, Z_i = R_leg,i ∥ (R_s,i + Z_{i+1})),
+ * then the first column of G⁻¹ follows by a chain of voltage dividers: x_0 = Z_0,
+ * x_{i+1} = x_i · Z_{i+1} / (R_s,i + Z_{i+1}). Every step adds, multiplies or divides positive
+ * numbers, so there is no cancellation. w_i = x_i / R_leg,i (G is symmetric, so its first row
  * equals its first column). The hot paths allocate nothing.
  */
 
 /**
- * Writes Y_i (siemens), the conductance seen from node i toward the LSB end (leg i included,
- * series link to node i−1 excluded), into `y[0..n−1]`.
+ * Writes Z_i (ohms), the resistance seen from node i toward the LSB end (leg i included,
+ * series link to node i−1 excluded), into `z[0..n−1]`: Z_{N−1} = R_leg ∥ R_term,
+ * Z_i = R_leg,i ∥ (R_s,i + Z_{i+1}). One division per node.
  */
-function conductanceTowardLsb(
+function impedanceTowardLsb(
   legsOhm: ArrayLike<number>,
   seriesOhm: ArrayLike<number>,
   terminationOhm: number,
   switchOhm: number,
-  y: Float64Array
+  z: Float64Array
 ): void {
   const n = legsOhm.length
-  let yNext = 1 / ((legsOhm[n - 1] as number) + switchOhm) + 1 / terminationOhm
-  y[n - 1] = yNext
+  const rLast = (legsOhm[n - 1] as number) + switchOhm
+  let zNext = rLast * terminationOhm / (rLast + terminationOhm)
+  z[n - 1] = zNext
   for (let i = n - 2; i >= 0; i--) {
-    // g_s ∥-in-series Y_{i+1} = 1 / (R_s + 1/Y_{i+1})
-    yNext = 1 / ((legsOhm[i] as number) + switchOhm) + 1 / ((seriesOhm[i] as number) + 1 / yNext)
-    y[i] = yNext
+    const rLeg = (legsOhm[i] as number) + switchOhm
+    const rDown = (seriesOhm[i] as number) + zNext
+    zNext = rLeg * rDown / (rLeg + rDown)
+    z[i] = zNext
   }
 }
 
 /**
- * Turns Y (in `out`) into weights in place, starting from the voltage x0 of node 0 per unit
- * current injected there; returns nothing, `out[i]` becomes x_i · g_leg,i.
+ * Turns Z (in `out`) into weights in place, starting from x0, the voltage of node 0 per unit
+ * current injected there: x_{i+1} = x_i · Z_{i+1} / (R_s,i + Z_{i+1}), `out[i]` = x_i / R_leg,i.
  */
-function weightsFromConductance(
+function weightsFromImpedance(
   legsOhm: ArrayLike<number>,
   seriesOhm: ArrayLike<number>,
   switchOhm: number,
@@ -49,9 +52,8 @@ function weightsFromConductance(
   let x = x0
   for (let i = 0; i < n; i++) {
     if (i > 0) {
-      const rS = seriesOhm[i - 1] as number
-      const rBelow = 1 / (out[i] as number)
-      x *= rBelow / (rS + rBelow)
+      const zBelow = out[i] as number
+      x *= zBelow / ((seriesOhm[i - 1] as number) + zBelow)
     }
     out[i] = x / ((legsOhm[i] as number) + switchOhm)
   }
@@ -76,8 +78,8 @@ export function ladderWeights(
   out?: Float64Array
 ): Float64Array {
   const w = out ?? new Float64Array(legsOhm.length)
-  conductanceTowardLsb(legsOhm, seriesOhm, terminationOhm, switchOhm, w)
-  weightsFromConductance(legsOhm, seriesOhm, switchOhm, 1 / (w[0] as number), w)
+  impedanceTowardLsb(legsOhm, seriesOhm, terminationOhm, switchOhm, w)
+  weightsFromImpedance(legsOhm, seriesOhm, switchOhm, w[0] as number, w)
   return w
 }
 
@@ -93,11 +95,14 @@ export function ladderRoutOhm(
   switchOhm = 0
 ): number {
   const n = legsOhm.length
-  let yNext = 1 / ((legsOhm[n - 1] as number) + switchOhm) + 1 / terminationOhm
+  const rLast = (legsOhm[n - 1] as number) + switchOhm
+  let z = rLast * terminationOhm / (rLast + terminationOhm)
   for (let i = n - 2; i >= 0; i--) {
-    yNext = 1 / ((legsOhm[i] as number) + switchOhm) + 1 / ((seriesOhm[i] as number) + 1 / yNext)
+    const rLeg = (legsOhm[i] as number) + switchOhm
+    const rDown = (seriesOhm[i] as number) + z
+    z = rLeg * rDown / (rLeg + rDown)
   }
-  return 1 / yNext
+  return z
 }
 
 /** Unary and binary weights of a segmented ladder, see {@link segmentedWeights}. */
@@ -129,13 +134,13 @@ export function segmentedWeights(
 ): SegmentedWeights {
   const unary = out?.unary ?? new Float64Array(unaryLegsOhm.length)
   const binary = out?.binary ?? new Float64Array(legsOhm.length)
-  conductanceTowardLsb(legsOhm, seriesOhm, terminationOhm, switchOhm, binary)
-  const rLadder = 1 / (binary[0] as number)
+  impedanceTowardLsb(legsOhm, seriesOhm, terminationOhm, switchOhm, binary)
+  const rLadder = binary[0] as number
   let yOut = 1 / (jointOhm + rLadder)
   for (let j = 0; j < unaryLegsOhm.length; j++) yOut += 1 / ((unaryLegsOhm[j] as number) + switchOhm)
   const xOut = 1 / yOut
   for (let j = 0; j < unaryLegsOhm.length; j++) unary[j] = xOut / ((unaryLegsOhm[j] as number) + switchOhm)
-  weightsFromConductance(legsOhm, seriesOhm, switchOhm, xOut * rLadder / (jointOhm + rLadder), binary)
+  weightsFromImpedance(legsOhm, seriesOhm, switchOhm, xOut * rLadder / (jointOhm + rLadder), binary)
   return { unary, binary }
 }
 

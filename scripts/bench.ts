@@ -1,0 +1,44 @@
+/**
+ * `npm run bench`: runs every benchmark section, prints one table and writes
+ * bench-report.json (git-ignored). Exit code 1 when any row misses its target.
+ * Add a section by appending `{ section, run }` to SECTIONS; `run` returns BenchRow[].
+ */
+import { writeFileSync } from 'node:fs'
+import type { BenchRow } from './bench/solve'
+import { runSolveBench } from './bench/solve'
+
+interface Section {
+  section: string
+  run: () => BenchRow[] | Promise<BenchRow[]>
+}
+
+const SECTIONS: Section[] = [
+  { section: 'solve', run: runSolveBench }
+  // other sections (Monte Carlo / evaluation, API) go here
+]
+
+function format(x: number): string {
+  if (x === 0) return '0'
+  const a = Math.abs(x)
+  return a >= 1e5 || a < 1e-3 ? x.toExponential(3) : x.toPrecision(4)
+}
+
+async function main(): Promise<number> {
+  const report: Array<BenchRow & { section: string }> = []
+  for (const s of SECTIONS) {
+    for (const row of await s.run()) report.push({ section: s.section, ...row })
+  }
+  for (const r of report) {
+    const mark = r.pass ? 'ok  ' : 'MISS'
+    process.stdout.write(`${mark} [${r.section}] ${r.name}: ${format(r.value)} ${r.unit} (target ${r.target})\n`)
+  }
+  writeFileSync('bench-report.json', `${JSON.stringify({ date: new Date().toISOString(), rows: report }, null, 2)}\n`)
+  return report.every(r => r.pass) ? 0 : 1
+}
+
+main().then((code) => {
+  process.exitCode = code
+}, (e: unknown) => {
+  process.stderr.write(`bench failed: ${e instanceof Error ? e.message : String(e)}\n`)
+  process.exitCode = 1
+})

@@ -1,3 +1,6 @@
+import { join } from 'node:path'
+import { build } from 'esbuild'
+
 // Root-level layout: pages/, components/ and stores/ live at the top, not under app/.
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@sidebase/nuxt-auth', '@nuxt/eslint'],
@@ -22,7 +25,23 @@ export default defineNuxtConfig({
   srcDir: '.',
   compatibilityDate: '2026-11-01',
   nitro: {
-    experimental: { tasks: false }
+    experimental: { tasks: false },
+    hooks: {
+      // The evaluation worker runs in worker threads, so it needs a file of its own beside the
+      // server bundle; Nitro's rollup build only emits the request-handling code.
+      async compiled(nitro) {
+        const outDir = nitro.options.dev ? join(nitro.options.buildDir, 'dev') : nitro.options.output.serverDir
+        await build({
+          entryPoints: [join(nitro.options.rootDir, 'server/workers/evaluate.worker.ts')],
+          outfile: join(outDir, 'workers/evaluate.mjs'),
+          bundle: true,
+          platform: 'node',
+          format: 'esm',
+          target: 'node20',
+          logLevel: 'warning'
+        })
+      }
+    }
   },
   typescript: { strict: true },
   telemetry: false,

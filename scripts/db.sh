@@ -44,6 +44,7 @@ log-error=$DIR/mariadb.err
 character-set-server=utf8mb4
 collation-server=utf8mb4_unicode_ci
 max_connections=300
+max_allowed_packet=256M
 CNF
 }
 

@@ -38,3 +38,19 @@ describe('POST /api/solve', () => {
     expect(res.body.message).toContain(field)
   })
 })
+
+describe('POST /api/netlist', () => {
+  it('returns a SPICE netlist with one element line per resistor and a DC sweep over the codes', async () => {
+    const res = await api<{ netlist: string, format: string, bits: number }>('/api/netlist', { method: 'POST', cookie, body: { circuit: ladder } })
+    expect(res.status).toBe(200)
+    expect(res.body.format).toBe('spice')
+    expect(res.body.netlist).toMatch(/^dc vcode 0 31 1$/m)
+    expect(res.body.netlist).toMatch(/^\.end\s*$/im)
+  })
+
+  it('answers a bad circuit with 400 naming the field', async () => {
+    const res = await api<{ message: string }>('/api/netlist', { method: 'POST', cookie, body: { circuit: { ...ladder, terminationOhm: 0 } } })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toContain('circuit.terminationOhm')
+  })
+})

@@ -68,7 +68,7 @@ export async function startTestDatabase(): Promise<TestDatabase> {
     '[client]', `port=${port}`, `socket=${dir}/db.sock`, '[mariadbd]', runAs, `port=${port}`, 'bind-address=127.0.0.1',
     'skip-name-resolve', `socket=${dir}/db.sock`, `pid-file=${dir}/db.pid`, `datadir=${dir}/data`, `log-error=${dir}/db.err`,
     'character-set-server=utf8mb4', 'collation-server=utf8mb4_unicode_ci', 'innodb-flush-log-at-trx-commit=0',
-    'innodb-doublewrite=0', 'max_connections=300', ''
+    'innodb-doublewrite=0', 'max_connections=300', 'max_allowed_packet=256M', ''
   ].join('\n'))
   execFileSync(bin('mariadb-install-db'), [`--defaults-file=${cnf}`, `--datadir=${dir}/data`, '--skip-test-db', '--auth-root-authentication-method=normal'], { stdio: 'ignore' })
   await startInstance(cnf)

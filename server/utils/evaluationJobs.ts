@@ -1,0 +1,80 @@
+import type { EvaluateInput } from '#shared/core/contract/evaluate'
+import { ENGINE_VERSION } from '#shared/core/version'
+import type { SessionUser } from '#shared/types/auth'
+import type { EvaluationJobDto } from '#shared/types/evaluations'
+
+/** Queued or running evaluations one user may have at once; more get 429. */
+export const MAX_ACTIVE_JOBS_PER_USER = 2
+/** A running job whose worker has not reported for this long is taken as interrupted. */
+const STALE_AFTER_MS = 10 * 60 * 1000
+
+// Abort handles of the jobs this instance runs (cancel from another instance goes through the row).
+const running = new Map<number, AbortController>()
+
+/** Inserts a job row and starts it in the pool without waiting; returns the job id. */
+export async function startEvaluationJob(user: SessionUser, input: EvaluateInput): Promise<number> {
+  const db = useDb()
+  const active = await db('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
+  if (Number(active[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) {
+    throw createError({ statusCode: 429, statusMessage: 'Too many evaluations running', message: `At most ${MAX_ACTIVE_JOBS_PER_USER} evaluations may run at once per user; wait for one to finish or cancel it` })
+  }
+  const [id] = await db('evaluations').insert({
+    team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
+    input: JSON.stringify(input), engine_version: ENGINE_VERSION
+  })
+  void runJob(id!, input)
+  return id!
+}
+
+async function runJob(id: number, input: EvaluateInput): Promise<void> {
+  const db = useDb()
+  const controller = new AbortController()
+  running.set(id, controller)
+  try {
+    await db('evaluations').where({ id }).update({ status: 'running', heartbeat_at: new Date() })
+    const result = await evaluateInPool(input, {
+      signal: controller.signal,
+      onProgress: async ({ done }) => {
+        const row = await db('evaluations').where({ id }).first('status')
+        if (row?.status === 'cancelled') controller.abort()
+        else await db('evaluations').where({ id }).update({ tasks_done: done, heartbeat_at: new Date() })
+      }
+    })
+    await db('evaluations').where({ id }).whereNot({ status: 'cancelled' })
+      .update({ status: 'done', result: JSON.stringify(result), finished_at: new Date(), heartbeat_at: new Date() })
+  } catch (error) {
+    const cancelled = controller.signal.aborted
+    await db('evaluations').where({ id }).whereNot({ status: 'cancelled' }).update({
+      status: cancelled ? 'cancelled' : 'failed', error: cancelled ? null : String((error as Error)?.message ?? error).slice(0, 2000), finished_at: new Date()
+    }).catch(() => undefined)
+  } finally {
+    running.delete(id)
+  }
+}
+
+/** The job as the API shows it (result only when asked), or null when not this team's. */
+export async function readEvaluationJob(teamId: number, id: number, withResult: boolean): Promise<EvaluationJobDto | null> {
+  const columns = ['id', 'user_id', 'status', 'tasks_total', 'tasks_done', 'engine_version', 'error', 'created_at', 'heartbeat_at', 'finished_at']
+  const row = await useDb()('evaluations').where({ id, team_id: teamId }).first(withResult ? [...columns, 'result'] : columns)
+  if (!row) return null
+  const stale = row.status === 'running' && !running.has(id) && row.heartbeat_at && Date.now() - new Date(row.heartbeat_at).getTime() > STALE_AFTER_MS
+  return {
+    id: row.id,
+    userId: row.user_id,
+    status: stale ? 'failed' : row.status,
+    progress: { done: row.tasks_done, total: row.tasks_total },
+    engineVersion: row.engine_version,
+    error: stale ? 'The evaluation was interrupted; run it again' : row.error,
+    createdAt: new Date(row.created_at).toISOString(),
+    finishedAt: row.finished_at ? new Date(row.finished_at).toISOString() : null,
+    result: withResult && row.result ? (typeof row.result === 'string' ? JSON.parse(row.result) : row.result) : null
+  }
+}
+
+/** Marks a queued or running job cancelled; the running instance stops at its next task. */
+export async function cancelEvaluationJob(teamId: number, id: number): Promise<boolean> {
+  const changed = await useDb()('evaluations').where({ id, team_id: teamId }).whereIn('status', ['queued', 'running'])
+    .update({ status: 'cancelled', finished_at: new Date() })
+  running.get(id)?.abort()
+  return changed > 0
+}

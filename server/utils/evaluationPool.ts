@@ -1,0 +1,66 @@
+import { setMaxListeners } from 'node:events'
+import { existsSync } from 'node:fs'
+import { availableParallelism } from 'node:os'
+import { dirname, join } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { Piscina } from 'piscina'
+import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
+import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
+
+type Task = ReturnType<typeof planEvaluation>[number]
+type Part = ReturnType<typeof runEvaluationTask>
+
+let pool: Piscina | null | undefined
+
+/** Finds the bundled worker next to the server output (built) or the dev bundle; null if absent. */
+function workerFile(): string | null {
+  let dir = dirname(fileURLToPath(import.meta.url))
+  for (let i = 0; i < 5; i++) {
+    const candidate = join(dir, 'workers', 'evaluate.mjs')
+    if (existsSync(candidate)) return candidate
+    dir = dirname(dir)
+  }
+  return null
+}
+
+/** The process-wide worker pool (one thread per core), or null where no worker bundle exists. */
+function usePool(): Piscina | null {
+  if (pool === undefined) {
+    const filename = workerFile()
+    pool = filename ? new Piscina({ filename, maxThreads: Math.max(1, availableParallelism()), idleTimeout: 60_000 }) : null
+    if (!pool) console.warn('[rungwise] no evaluation worker bundle found; evaluating on the request thread')
+  }
+  return pool
+}
+
+/** Runs one task in the pool (or inline when there is no pool), abortable. */
+function runTask(task: Task, signal?: AbortSignal): Promise<Part> {
+  const p = usePool()
+  if (!p) return Promise.resolve(runEvaluationTask(task))
+  return p.run(task, { signal }) as Promise<Part>
+}
+
+export interface EvaluationProgress { done: number, total: number }
+
+/**
+ * Evaluates a validated input with every Monte Carlo task on a worker thread, so requests keep
+ * being served meanwhile. Tasks queue in the pool; `onProgress` fires after each finished task.
+ */
+export async function evaluateInPool(input: EvaluateInput, options: { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void> } = {}): Promise<EvaluateOutput> {
+  const tasks = planEvaluation(input)
+  // Every queued task listens on the one signal.
+  if (options.signal) setMaxListeners(tasks.length + 10, options.signal)
+  let done = 0
+  const parts = await Promise.all(tasks.map(async (task) => {
+    const part = await runTask(task, options.signal)
+    done += 1
+    await options.onProgress?.({ done, total: tasks.length })
+    return part
+  }))
+  return mergeEvaluation(input, parts)
+}
+
+/** Number of tasks an input splits into (for progress reporting before the run starts). */
+export function evaluationTaskCount(input: EvaluateInput): number {
+  return planEvaluation(input).length
+}

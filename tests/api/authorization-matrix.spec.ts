@@ -1,0 +1,76 @@
+import { readdirSync, statSync } from 'node:fs'
+import { join, relative } from 'node:path'
+import bcrypt from 'bcryptjs'
+import type { Knex } from 'knex'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { testDb } from '../support/db'
+import { api, DEMO, signIn } from '../support/http'
+import { AUTHORIZATION_MATRIX, type Fixtures, type Who } from './authorization-table'
+
+/**
+ * Every API route against every kind of caller, from the one table in authorization-table.ts.
+ * A route file without a row fails here, so no route ships without its authorization decided.
+ */
+function routesOnDisk(): string[] {
+  const root = join(process.cwd(), 'server/api')
+  const out: string[] = []
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir)) {
+      const full = join(dir, name)
+      if (statSync(full).isDirectory()) walk(full)
+      else if (/\.(get|post|patch|put|delete)\.ts$/.test(name)) {
+        const [, path, method] = /^(.*)\.(get|post|patch|put|delete)\.ts$/.exec(relative(root, full))!
+        const url = `/api/${path!.replace(/(^|\/)index$/, '').replace(/\[(\w+)\]/g, ':$1')}`.replace(/\/$/, '')
+        out.push(`${method!.toUpperCase()} ${url}`)
+      }
+    }
+  }
+  walk(root)
+  return out.sort()
+}
+
+let db: Knex
+const cookies: Partial<Record<Who, string>> = {}
+const fixtures = {} as Fixtures
+
+beforeAll(async () => {
+  db = testDb()
+  for (const role of ['admin', 'architect', 'engineer', 'manager'] as const) cookies[role] = await signIn(DEMO[role])
+  const [teamId] = await db('teams').insert({ name: 'Matrix Other Team', slug: `matrix-${Date.now()}` })
+  const email = `matrix-${Date.now()}@other.example`
+  const [userId] = await db('users').insert({ team_id: teamId, email, display_name: 'Other', password_hash: await bcrypt.hash('matrix-other-pass', 4), role: 'admin' })
+  cookies.otherTeam = await signIn(email, 'matrix-other-pass')
+  const demoTeam = await db('teams').where({ slug: 'harrow-lake' }).first('id')
+  const own = await db('studies').where({ team_id: demoTeam.id }).first('id')
+  const ids = await db('studies').insert({ team_id: teamId, owner_id: userId, title: 'Matrix other-team study', spec: JSON.stringify({ bits: 8 }) })
+  fixtures.ownStudyId = own.id
+  fixtures.otherTeamStudyId = ids[0]!
+  fixtures.otherTeamId = teamId!
+  fixtures.otherUserId = userId!
+  fixtures.db = db
+})
+afterAll(async () => {
+  await db.destroy()
+})
+
+describe('authorization matrix', () => {
+  it('has exactly one row per API route on disk', () => {
+    const inTable = AUTHORIZATION_MATRIX.map(r => r.route).sort()
+    const missing = routesOnDisk().filter(r => !inTable.includes(r))
+    expect(missing, `add these routes to tests/api/authorization-table.ts: ${missing.join(', ')}`).toEqual([])
+    expect(inTable.filter(r => !routesOnDisk().includes(r)), 'rows for routes that no longer exist').toEqual([])
+    expect(new Set(inTable).size).toBe(inTable.length)
+  })
+
+  for (const row of AUTHORIZATION_MATRIX) {
+    for (const [who, expected] of Object.entries(row.expect) as [Who, number][]) {
+      it(`${row.route} as ${who} → ${expected}`, async () => {
+        const [method, pattern] = row.route.split(' ') as [string, string]
+        const request = await row.request(fixtures, who)
+        const path = request.path ?? pattern
+        const res = await api(path, { method, body: request.body, cookie: who === 'signedOut' ? undefined : cookies[who] })
+        expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(expected)
+      })
+    }
+  }
+})

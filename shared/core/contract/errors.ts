@@ -30,7 +30,15 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return out === '' ? '(input)' : out
 }
 
+/**
+ * Flattens one issue. A failed union reports the branch that came closest (fewest issues),
+ * with the union's own path in front, so `{ circuit: { bits: 99 } }` says `circuit.bits: …`.
+ */
 function toFormatted(issue: z.core.$ZodIssue): FormattedIssue[] {
+  if (issue.code === 'invalid_union' && issue.errors.length > 0) {
+    const best = issue.errors.reduce((a, b) => (b.length < a.length ? b : a))
+    return best.flatMap(i => toFormatted({ ...i, path: [...issue.path, ...i.path] } as z.core.$ZodIssue))
+  }
   if (issue.code === 'unrecognized_keys') {
     return issue.keys.map(key => ({ path: formatPath([...issue.path, key]), message: issue.message }))
   }

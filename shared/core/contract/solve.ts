@@ -117,9 +117,11 @@ export const twoStageInputSchema = strict({
 export const solveInputSchema = z.discriminatedUnion('topology', [
   stringInputSchema, r2rVoltageInputSchema, r2rCurrentInputSchema, segmentedInputSchema, twoStageInputSchema
 ], {
-  error: (issue: { code?: string, input?: unknown }) => issue.code === 'invalid_union'
-    ? `must be one of ${TOPOLOGIES.join(', ')}`
-    : 'must be a JSON object with a topology field'
+  error: (issue: { code?: string, input?: unknown }) => issue.input === undefined
+    ? 'is missing; it must be a circuit object with a topology field'
+    : issue.code === 'invalid_union'
+      ? `must be one of ${TOPOLOGIES.join(', ')}`
+      : 'must be a JSON object with a topology field'
 })
 
 export type SolveInput = z.infer<typeof solveInputSchema>

@@ -2,15 +2,12 @@
  * `exportNetlist(input)`: the netlist contract's entry point (validated input → output).
  */
 import type { NetlistInput, NetlistOutput } from '../contract/netlist'
+import type { SolveInput } from '../contract/solve'
+import { candidateCircuit } from './candidate'
 import { spiceNetlist } from './spice'
 
-/**
- * SPICE netlist of the circuit in a validated netlist input (parse it with
- * `netlistInputSchema` first). Pure; the text is the same for the same input.
- */
-export function exportNetlist(input: NetlistInput): NetlistOutput {
-  const c = input.circuit
-  const s = spiceNetlist(c, { note: input.note })
+function render(c: SolveInput, note: string | undefined): NetlistOutput {
+  const s = spiceNetlist(c, { note })
   return {
     netlist: s.netlist,
     format: 'spice',
@@ -21,5 +18,22 @@ export function exportNetlist(input: NetlistInput): NetlistOutput {
     dcColumns: s.dcColumns,
     routFile: s.routFile,
     routColumn: s.routColumn
+  }
+}
+
+/**
+ * SPICE netlist of a validated netlist input (parse it with `netlistInputSchema` first): the
+ * given circuit, or the sized candidate (nominal or one sample), whose circuit and sizing are
+ * returned too. Pure; the same input always gives the same text.
+ */
+export function exportNetlist(input: NetlistInput): NetlistOutput {
+  if ('circuit' in input) return render(input.circuit, input.note)
+  const built = candidateCircuit(input)
+  const note = input.note ? `${built.note}; ${input.note}` : built.note
+  return {
+    ...render(built.circuit, note),
+    circuit: built.circuit,
+    sizing: { unitOhm: built.unitOhm, sigmaUnit: built.sigmaUnit },
+    sample: input.sample
   }
 }

@@ -33,6 +33,9 @@ export interface SpiceNetlist {
   routColumn: 'rout' | 'gout'
 }
 
+/** Convergence tolerances of every exported deck (relative, volts, amperes). */
+export const TIGHT_TOLERANCES = 'reltol=1e-12 vntol=1e-12 abstol=1e-15'
+
 /** Probe current (A) injected into the output for the R_out sweep (V_REF shorted). */
 const PROBE_A = 1e-3
 
@@ -100,6 +103,9 @@ export function spiceNetlist(c: SolveInput, options: SpiceOptions = {}): SpiceNe
   const zeroed = body(deck, c)
   if (c.topology === 'r2r-current') deck.element('VOUTP', ['out', '0'], 'DC 0', 'output pin held at 0 V (virtual ground); its current is I_OUT')
   else deck.element('IPROBE', ['0', 'out'], 'DC 0', 'test current into the output, used only by the R_out sweep')
+  // Newton on the behavioural selectors may stop within the default reltol (1e-3) before the
+  // bits have settled; tight tolerances make every DC point converge to the exact linear solution
+  deck.raw(`.options ${TIGHT_TOLERANCES}`)
   if (options.controlLines) {
     deck.raw('.control')
     for (const line of options.controlLines) deck.raw(line)

@@ -78,7 +78,7 @@ describe('netlist text', () => {
     const body = lines.slice(0, lines.indexOf('.control'))
     const names = new Set<string>()
     body.forEach((line, i) => {
-      if (line === '' || line.startsWith('*')) return
+      if (line === '' || line.startsWith('*') || line.startsWith('.')) return
       const tokens = line.split(/\s+/)
       expect(tokens.length).toBeGreaterThanOrEqual(3)
       expect(names.has(tokens[0]!.toLowerCase())).toBe(false)

@@ -20,7 +20,15 @@ export function createSegmentedScratch(unaryBits: number, points = 256): Segment
   return { cum: new Float64Array(2 ** unaryBits), bucket: new Float64Array(Math.max(points, 2)) }
 }
 
-function segmentedLine(u: ArrayLike<number>, w: ArrayLike<number>, offset: number, def: InlDefinition): { a: number, s: number } {
+function unaryTotalOf(u: ArrayLike<number>, scale: number): number {
+  let total = 0
+  for (let m = 0; m < u.length; m++) {
+    total += u[m]!
+  }
+  return total * scale
+}
+
+function segmentedLine(u: ArrayLike<number>, uScale: number, uTotal: number, w: ArrayLike<number>, offset: number, def: InlDefinition): { a: number, s: number } {
   const L = w.length
   const legs = u.length
   const n = (legs + 1) * 2 ** L
@@ -30,26 +38,24 @@ function segmentedLine(u: ArrayLike<number>, w: ArrayLike<number>, offset: numbe
     total += w[i]!
     pw += 2 ** (L - 1 - i) * w[i]!
   }
+  if (def === 'endpoint') {
+    return { a: offset, s: (uTotal + total) / (n - 1) }
+  }
   let cum = 0
   let sumCum = 0
   let sumMCum = 0
   for (let m = 0; m <= legs; m++) {
     sumCum += cum
     sumMCum += m * cum
-    cum += m < legs ? u[m]! : 0
-  }
-  if (def === 'endpoint') {
-    return { a: offset, s: (cum + total) / (n - 1) }
+    cum += m < legs ? u[m]! * uScale : 0
   }
   // V summed over all codes: each m appears 2^L times; bits are fair coins independent of m.
   const segs = legs + 1
   const meanCum = sumCum / segs
-  const meanM = legs / 2
-  const covMU = sumMCum / segs - meanM * meanCum
+  const covMU = sumMCum / segs - (legs / 2) * meanCum
   const sumV = n * (offset + meanCum + total / 2)
-  const meanK = (n - 1) / 2
   const covKV = 2 ** L * covMU + pw / 4
-  const sumKV = n * (covKV + meanK * (sumV / n))
+  const sumKV = n * (covKV + ((n - 1) / 2) * (sumV / n))
   return leastSquaresLine(n, sumV, sumKV)
 }
 
@@ -57,14 +63,17 @@ function segmentedLine(u: ArrayLike<number>, w: ArrayLike<number>, offset: numbe
  * Exact INL/DNL of a segmented curve into `out`; optionally widens `env` (buckets of codes).
  * @param u unary leg weights in thermometer order (2^M − 1 entries)
  * @param w binary weights, MSB first (L entries, L ≥ 1)
+ * @param uScale factor applied to every u (lets a caller pass leg conductances and the node voltage)
+ * @param uTotal Σ u·uScale if already known (saves a pass), else NaN
  */
 export function linearityFromSegmentedWeights(
   u: ArrayLike<number>, w: ArrayLike<number>, offset: number, def: InlDefinition,
-  out: LinearityResult, scratch: SegmentedScratch, env?: Envelope
+  out: LinearityResult, scratch: SegmentedScratch, env?: Envelope, uScale = 1, uTotal = Number.NaN
 ): LinearityResult {
   const L = w.length
   const step = 2 ** L
-  const { a, s } = segmentedLine(u, w, offset, def)
+  const total = Number.isNaN(uTotal) ? unaryTotalOf(u, uScale) : uTotal
+  const { a, s } = segmentedLine(u, uScale, total, w, offset, def)
   const e0 = (offset - a) / s
   let pos = 0
   let neg = 0
@@ -80,27 +89,20 @@ export function linearityFromSegmentedWeights(
       negC += 2 ** (L - 1 - i)
     }
   }
-  const cum = scratch.cum
-  cum[0] = e0
-  let hiM = 0
-  let loM = 0
-  for (let m = 1; m <= u.length; m++) {
-    cum[m] = cum[m - 1]! + u[m - 1]! / s - step
-    hiM = cum[m]! > cum[hiM]! ? m : hiM
-    loM = cum[m]! < cum[loM]! ? m : loM
-  }
-  out.inlMaxLsb = cum[hiM]! + pos
-  out.inlMinLsb = cum[loM]! + neg
-  out.inlMaxCode = hiM * step + posC
-  out.inlMinCode = loM * step + negC
-  segmentedDnl(u, w, s, out)
-  if (env) {
-    segmentedEnvelope(env, w, s, u.length, scratch, pos, neg)
+  const ext = scanUnary(u, uScale / s, step, e0, scratch, env && env.shift >= L ? env : undefined, neg, pos)
+  out.inlMaxLsb = ext.hiV + pos
+  out.inlMinLsb = ext.loV + neg
+  out.inlMaxCode = ext.hiM * step + posC
+  out.inlMinCode = ext.loM * step + negC
+  segmentedDnl(u, uScale, w, s, out, ext.uHi, ext.uLo)
+  if (env && env.shift < L) {
+    segmentedEnvelope(env, w, s, scratch)
   }
   return out
 }
 
-function segmentedDnl(u: ArrayLike<number>, w: ArrayLike<number>, s: number, out: LinearityResult): void {
+/** L binary steps (the same in every segment) and the extreme boundary steps u_m − Σw (legs uHi, uLo). */
+function segmentedDnl(u: ArrayLike<number>, uScale: number, w: ArrayLike<number>, s: number, out: LinearityResult, uHi: number, uLo: number): void {
   const L = w.length
   let below = 0
   out.dnlMaxLsb = -Infinity
@@ -110,8 +112,9 @@ function segmentedDnl(u: ArrayLike<number>, w: ArrayLike<number>, s: number, out
     record(out, (wj - below) / s - 1, 2 ** j - 1)
     below += wj
   }
-  for (let m = 0; m < u.length; m++) {
-    record(out, (u[m]! - below) / s - 1, (m + 1) * 2 ** L - 1)
+  if (u.length > 0) {
+    record(out, (u[uHi]! * uScale - below) / s - 1, (uHi + 1) * 2 ** L - 1)
+    record(out, (u[uLo]! * uScale - below) / s - 1, (uLo + 1) * 2 ** L - 1)
   }
 }
 
@@ -126,35 +129,83 @@ function record(out: LinearityResult, dnl: number, code: number): void {
   }
 }
 
-/** Bucket ranges: buckets wider than a segment span several m; narrower ones fix high LSB-section bits. */
-function segmentedEnvelope(env: Envelope, w: ArrayLike<number>, s: number, legs: number, scratch: SegmentedScratch, pos: number, neg: number): void {
-  const L = w.length
+/** Extremes of the cumulative unary INL e0 + Σ_{l<m}(u_l·k − 2^L) over m, and of u itself. */
+interface UnaryExtremes {
+  hiV: number
+  loV: number
+  hiM: number
+  loM: number
+  uHi: number
+  uLo: number
+}
+
+/**
+ * One pass over the unary legs. With `env` (buckets at least one segment wide) each bucket's
+ * range is widened as the pass goes; otherwise the cumulative values are kept in scratch.cum for
+ * buckets narrower than a segment.
+ */
+function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, neg: number, pos: number): UnaryExtremes {
+  const legs = u.length
   const cum = scratch.cum
-  if (env.shift >= L) {
-    const per = 2 ** (env.shift - L)
-    for (let b = 0; b < env.min.length; b++) {
-      let lo = Infinity
-      let hi = -Infinity
-      for (let m = b * per; m < Math.min(legs + 1, (b + 1) * per); m++) {
-        lo = Math.min(lo, cum[m]!)
-        hi = Math.max(hi, cum[m]!)
+  const group = env ? 2 ** env.shift / step : legs + 1
+  const r: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0 }
+  let uHiV = -Infinity
+  let uLoV = Infinity
+  let c = e0
+  for (let start = 0, b = 0; start <= legs; start += group, b++) {
+    let lo = Infinity
+    let hi = -Infinity
+    const end = Math.min(legs + 1, start + group)
+    for (let m = start; m < end; m++) {
+      cum[m] = c
+      if (c > hi) {
+        hi = c
+        if (c > r.hiV) {
+          r.hiV = c
+          r.hiM = m
+        }
       }
+      if (c < lo) {
+        lo = c
+        if (c < r.loV) {
+          r.loV = c
+          r.loM = m
+        }
+      }
+      if (m < legs) {
+        const um = u[m]!
+        c += um * k - step
+        if (um > uHiV) {
+          uHiV = um
+          r.uHi = m
+        }
+        if (um < uLoV) {
+          uLoV = um
+          r.uLo = m
+        }
+      }
+    }
+    if (env) {
       widenBucket(env, b, lo + neg, hi + pos)
     }
-    return
   }
+  return r
+}
+
+/** Buckets narrower than a segment: each fixes m and the high LSB-section bits. */
+function segmentedEnvelope(env: Envelope, w: ArrayLike<number>, s: number, scratch: SegmentedScratch): void {
+  const L = w.length
+  const cum = scratch.cum
   const highBits = L - env.shift
   const perSeg = 2 ** highBits
   const fixed = scratch.bucket
   let negLow = 0
   let posLow = 0
   fixed[0] = 0
-  for (let i = 0; i < L; i++) {
+  for (let i = highBits; i < L; i++) {
     const d = w[i]! / s - 2 ** (L - 1 - i)
-    if (i >= highBits) {
-      negLow += Math.min(0, d)
-      posLow += Math.max(0, d)
-    }
+    negLow += Math.min(0, d)
+    posLow += Math.max(0, d)
   }
   for (let h = 1; h < perSeg; h++) {
     const bit = 31 - Math.clz32(h)

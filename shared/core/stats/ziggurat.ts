@@ -17,6 +17,8 @@ const V = 9.91256303526217e-3
 const KN = new Float64Array(LAYERS)
 const WN = new Float64Array(LAYERS)
 const FN = new Float64Array(LAYERS)
+/** Integer form of the fast-path test |j + ½| < KN[i] for the folded index j ^ (j >> 31). */
+const KI = new Int32Array(LAYERS)
 
 function buildTables(): void {
   let dn = R
@@ -34,6 +36,9 @@ function buildTables(): void {
     tn = dn
     FN[i] = Math.exp(-0.5 * dn * dn)
     WN[i] = dn / SCALE
+  }
+  for (let i = 0; i < LAYERS; i++) {
+    KI[i] = Math.ceil(KN[i]! - 0.5)
   }
 }
 buildTables()
@@ -107,15 +112,15 @@ export class FastNormalGenerator {
       s2 ^= t
       s3 = (s3 << 11) | (s3 >>> 21)
       const iz = u & 127
-      const j = (u >> 7) + 0.5
-      if (Math.abs(j) < KN[iz]!) {
-        out[k] = j * WN[iz]!
+      const ji = u >> 7
+      if ((ji ^ (ji >> 31)) < KI[iz]!) {
+        out[k] = (ji + 0.5) * WN[iz]!
       } else {
         this.s0 = s0
         this.s1 = s1
         this.s2 = s2
         this.s3 = s3
-        out[k] = this.slow(iz, j)
+        out[k] = this.slow(iz, ji + 0.5)
         s0 = this.s0
         s1 = this.s1
         s2 = this.s2

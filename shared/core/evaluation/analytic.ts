@@ -1,0 +1,129 @@
+/**
+ * The analytic (non-Monte-Carlo) part of one candidate: counts, sizing and area, analytic σ and
+ * yields, the exact nominal solve of every code (systematic INL/DNL, I_REF, R_out), reference,
+ * dynamics, glitch of every transition, noise and power. Pure and synchronous; the result is
+ * plain data so it can come back from a worker.
+ */
+import { buildCircuit } from '../circuits/index'
+import type { EvaluateInput } from '../contract/evaluate'
+import { elementCounts } from '../models/counts'
+import type { ElementCounts } from '../models/counts'
+import { dynamics, effectiveRoutMaxOhm } from '../models/dynamics'
+import { analyticDnlYield, analyticInlYield, analyticMonotonicYield, analyticSigmas } from '../models/matching'
+import { ktcNoiseVrms, quantisationNoiseVrms, rcNoiseVrms } from '../models/noise'
+import type { ReferenceSummary } from '../models/reference'
+import { referenceSummary } from '../models/reference'
+import { solveCircuitArrays } from '../solve/index'
+import type { DecimatedSeries } from '../stats/envelope'
+import { decimateSeries } from '../stats/envelope'
+import { dnlAbsLsb, inlAbsLsb, linearityFromLevels, newLinearityResult } from '../stats/linearity'
+import type { CandidateContext } from './context'
+import { circuitShapeOf, twoStageUnits } from './context'
+import type { GlitchSummary } from './glitch-summary'
+import { summariseGlitch } from './glitch-summary'
+
+/** Analytic results of one candidate (SI units). */
+export interface AnalyticCandidate {
+  id: string
+  counts: ElementCounts
+  area: { resistorAreaMm2: number, switchAreaMm2: number, decoderAreaMm2: number, totalAreaMm2: number, areaBudgetShare: number }
+  analytic: { inlSigmaLsb: number, dnlSigmaLsb: number, inlYield: number, dnlYield: number, monotonicYield: number }
+  systematic: { inlLsb: number, dnlLsb: number, loadedInlLsb: number | null }
+  reference: ReferenceSummary
+  output: { routMinOhm: number, routMaxOhm: number, routEffMaxOhm: number, tauS: number, settlingS: number, maxUpdateRateHz: number | null }
+  noise: { noiseVrms: number, noiseKtcVrms: number | null, quantNoiseVrms: number }
+  glitch: GlitchSummary
+  series: { irefA: DecimatedSeries, rinOhm: DecimatedSeries, routOhm: DecimatedSeries }
+}
+
+function areaOf(c: CandidateContext, counts: ElementCounts, input: EvaluateInput): AnalyticCandidate['area'] {
+  const p = input.process
+  const resistorAreaMm2 = (counts.unitResistorCount * c.sizing.unitAreaUm2 * p.layoutOverhead) / 1e6
+  const switchAreaMm2 = (counts.switchCount * p.switchAreaUm2) / 1e6
+  const decoderAreaMm2 = (counts.decoderGateCount * p.gateAreaUm2) / 1e6
+  const totalAreaMm2 = resistorAreaMm2 + switchAreaMm2 + decoderAreaMm2
+  return { resistorAreaMm2, switchAreaMm2, decoderAreaMm2, totalAreaMm2, areaBudgetShare: totalAreaMm2 / input.spec.areaBudgetMm2 }
+}
+
+function analyticStats(c: CandidateContext, input: EvaluateInput): AnalyticCandidate['analytic'] {
+  const { shape, sizing } = c
+  const twoR = input.process.twoRConstruction
+  const s = input.spec
+  return {
+    ...analyticSigmas(shape, twoR, sizing.sigmaUnit),
+    inlYield: analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb),
+    dnlYield: analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb),
+    monotonicYield: analyticMonotonicYield(shape, twoR, sizing.sigmaUnit)
+  }
+}
+
+/** Levels of a voltage output under a resistive load: V·R_L/(R_L + R_out(k)). */
+function loadedInl(value: Float64Array, rout: Float64Array, loadOhm: number, input: EvaluateInput): number {
+  const loaded = value.map((v, k) => (v * loadOhm) / (loadOhm + rout[k]!))
+  return inlAbsLsb(linearityFromLevels(loaded, input.options.inlDefinition, newLinearityResult()))
+}
+
+/** Per-code output resistance driving the load: the I–V amplifier's R_fb = R stands in for current mode. */
+function drivingRout(c: CandidateContext, rout: Float64Array): Float64Array {
+  return c.shape.topology === 'r2r-current' ? new Float64Array(rout.length).fill(c.sizing.unitOhm) : rout
+}
+
+function finiteRange(a: Float64Array): { min: number, max: number } {
+  let min = Infinity
+  let max = -Infinity
+  for (let k = 0; k < a.length; k++) {
+    const v = a[k]!
+    if (Number.isFinite(v)) {
+      min = Math.min(min, v)
+      max = Math.max(max, v)
+    }
+  }
+  return { min, max }
+}
+
+/** The analytic part of one candidate. */
+export function analyseCandidate(c: CandidateContext, input: EvaluateInput): AnalyticCandidate {
+  const { spec, process, options } = input
+  const counts = elementCounts(c.shape, process.twoRConstruction)
+  const circuit = buildCircuit(circuitShapeOf(c.shape), {
+    unitOhm: c.sizing.unitOhm, vrefV: spec.vrefV, switchOhm: process.switchOhm, twoR: process.twoRConstruction,
+    ...twoStageUnits(c.shape, c.sizing.unitOhm)
+  })
+  const sol = solveCircuitArrays(circuit)
+  const nominal = linearityFromLevels(sol.value, options.inlDefinition, newLinearityResult())
+  const rout = drivingRout(c, sol.routOhm)
+  const voltageOut = sol.output === 'voltage'
+  const routEffMaxOhm = effectiveRoutMaxOhm(rout, spec.loadResistanceOhm)
+  const routRange = finiteRange(sol.routOhm)
+  const vLsb = spec.vrefV / 2 ** spec.bits
+  const budget = spec.refInlBudgetLsb ?? 0.1 * spec.inlTargetLsb
+  return {
+    id: c.shape.id,
+    counts,
+    area: areaOf(c, counts, input),
+    analytic: analyticStats(c, input),
+    systematic: {
+      inlLsb: inlAbsLsb(nominal),
+      dnlLsb: dnlAbsLsb(nominal),
+      loadedInlLsb: spec.loadResistanceOhm !== null && voltageOut ? loadedInl(sol.value, rout, spec.loadResistanceOhm, input) : null
+    },
+    reference: referenceSummary(sol.irefA, spec.vrefV, spec.refSourceOhm, budget, options.inlDefinition),
+    output: {
+      routMinOhm: routRange.min,
+      routMaxOhm: routRange.max,
+      routEffMaxOhm,
+      ...dynamics(routEffMaxOhm, spec.loadCapacitanceF, spec.bits, process.latchDelayS)
+    },
+    noise: {
+      noiseVrms: rcNoiseVrms(routEffMaxOhm, spec.loadCapacitanceF, spec.updateRateHz / 2, spec.temperatureK),
+      noiseKtcVrms: spec.loadCapacitanceF > 0 ? ktcNoiseVrms(spec.loadCapacitanceF, spec.temperatureK) : null,
+      quantNoiseVrms: quantisationNoiseVrms(spec.vrefV, spec.bits)
+    },
+    glitch: summariseGlitch(c.shape, vLsb, rout, process, options.envelopePoints),
+    series: {
+      irefA: decimateSeries(sol.irefA, options.envelopePoints),
+      rinOhm: decimateSeries(sol.irefA.map(i => spec.vrefV / i), options.envelopePoints),
+      routOhm: decimateSeries(sol.routOhm, options.envelopePoints)
+    }
+  }
+}

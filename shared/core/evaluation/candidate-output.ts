@@ -1,0 +1,112 @@
+/**
+ * Assembles one output candidate: the fixed metric names (SI units, null where not applicable),
+ * the detail sections and the list of spec items it fails.
+ */
+import type { EvaluateInput } from '../contract/evaluate'
+import type { McTally } from '../stats/accumulator'
+import { wilsonInterval } from '../stats/interval'
+import type { AnalyticCandidate } from './analytic'
+import type { CandidateContext } from './context'
+import { linearitySection } from './linearity-output'
+
+function finiteOrNull(x: number | null): number | null {
+  return x !== null && Number.isFinite(x) ? x : null
+}
+
+function yields(a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
+  if (t && t.trials > 0) {
+    const all = wilsonInterval(t.allPass, t.trials, input.options.confidence)
+    return { inlYield: t.inlPass / t.trials, dnlYield: t.dnlPass / t.trials, monotonicYield: t.monoPass / t.trials, yield: all.yield, yieldLow: all.low, yieldHigh: all.high, yieldSource: 'monte-carlo' }
+  }
+  const { inlYield, dnlYield, monotonicYield } = a.analytic
+  const all = inlYield * dnlYield * (input.spec.monotonicRequired ? monotonicYield : 1)
+  return { inlYield, dnlYield, monotonicYield, yield: all, yieldLow: null, yieldHigh: null, yieldSource: 'analytic' }
+}
+
+/** The metrics object of one candidate. */
+export function candidateMetrics(c: CandidateContext, a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
+  const r = a.reference
+  const g = a.glitch
+  return {
+    ...a.counts,
+    unitOhm: c.sizing.unitOhm,
+    unitOhmChoice: c.sizing.unitOhmChoice,
+    unitWidthUm: c.sizing.unitWidthUm,
+    unitLengthUm: c.sizing.unitLengthUm,
+    unitAreaUm2: c.sizing.unitAreaUm2,
+    matchingAreaUm2: c.sizing.matchingAreaUm2,
+    sigmaUnit: c.sizing.sigmaUnit,
+    sigmaUnitRequired: c.sizing.sigmaRequired,
+    sizingLimitedBy: c.sizing.limitedBy,
+    ...a.area,
+    inlSigmaLsb: a.analytic.inlSigmaLsb,
+    dnlSigmaLsb: a.analytic.dnlSigmaLsb,
+    ...yields(a, t, input),
+    inlYieldAnalytic: a.analytic.inlYield,
+    dnlYieldAnalytic: a.analytic.dnlYield,
+    monotonicYieldAnalytic: a.analytic.monotonicYield,
+    systematicInlLsb: a.systematic.inlLsb,
+    systematicDnlLsb: a.systematic.dnlLsb,
+    loadedInlLsb: a.systematic.loadedInlLsb,
+    glitchWorstVs: g.glitchWorstVs,
+    glitchWorstFromCode: g.glitchWorstFromCode,
+    glitchWorstToCode: g.glitchWorstToCode,
+    glitchMajorCarryVs: g.glitchMajorCarryVs,
+    irefMinA: r.irefMinA,
+    irefMaxA: r.irefMaxA,
+    rinMinOhm: finiteOrNull(r.rinMinOhm),
+    rinMaxOhm: finiteOrNull(r.rinMaxOhm),
+    refLoadCodeDependent: r.refLoadCodeDependent,
+    refSourceMaxOhm: finiteOrNull(r.refSourceMaxOhm),
+    refInlAtSourceLsb: r.refInlAtSourceLsb,
+    bufferNeeded: r.bufferNeeded,
+    routMinOhm: a.output.routMinOhm,
+    routMaxOhm: a.output.routMaxOhm,
+    tauS: a.output.tauS,
+    settlingS: a.output.settlingS,
+    maxUpdateRateHz: finiteOrNull(a.output.maxUpdateRateHz),
+    noiseVrms: a.noise.noiseVrms,
+    noiseKtcVrms: a.noise.noiseKtcVrms,
+    quantNoiseVrms: a.noise.quantNoiseVrms,
+    refPowerMaxW: r.refPowerMaxW,
+    refPowerMeanW: r.refPowerMeanW
+  }
+}
+
+type Metrics = ReturnType<typeof candidateMetrics>
+
+/** Spec items a candidate fails: area, yield, monotonic, update-rate, glitch, power, reference. */
+export function failingItems(m: Metrics, input: EvaluateInput): string[] {
+  const s = input.spec
+  const checks: [string, boolean][] = [
+    ['area', m.totalAreaMm2 > s.areaBudgetMm2],
+    ['yield', m.yield < s.yieldTarget],
+    ['monotonic', s.monotonicRequired && m.monotonicYield < s.yieldTarget],
+    ['update-rate', m.maxUpdateRateHz !== null && m.maxUpdateRateHz < s.updateRateHz],
+    ['glitch', m.glitchWorstVs > s.glitchLimitVs],
+    ['power', m.refPowerMaxW > s.powerBudgetW],
+    ['reference', s.refSourceOhm > 0 && m.bufferNeeded]
+  ]
+  return checks.filter(([, fails]) => fails).map(([name]) => name)
+}
+
+/** One output candidate. */
+export function buildCandidate(c: CandidateContext, a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
+  const metrics = candidateMetrics(c, a, t, input)
+  const failing = failingItems(metrics, input)
+  return {
+    id: c.shape.id,
+    topology: c.shape.topology,
+    unaryBits: c.shape.unaryBits,
+    coarseBits: c.shape.coarseBits,
+    decode: c.shape.decode,
+    buffered: c.shape.buffered,
+    metrics,
+    meetsSpec: failing.length === 0,
+    failing,
+    linearity: linearitySection(a, t, input),
+    glitch: { ...a.glitch },
+    reference: { ...a.reference, irefA: a.series.irefA, rinOhm: a.series.rinOhm },
+    output: { ...a.output, routOhm: a.series.routOhm, noise: a.noise }
+  }
+}

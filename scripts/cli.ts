@@ -7,16 +7,19 @@
 import { readFileSync } from 'node:fs'
 import type { z } from 'zod'
 import { formatIssues } from '../shared/core/contract/errors'
+import { evaluateInputSchema } from '../shared/core/contract/evaluate'
 import { netlistInputSchema } from '../shared/core/contract/netlist'
 import { solveInputSchema } from '../shared/core/contract/solve'
+import { evaluateSpec } from '../shared/core/evaluate'
 import { exportNetlist } from '../shared/core/netlist/export'
 import { solveCircuit } from '../shared/core/solve/index'
 
 const USAGE = `usage: npm run --silent cli -- <command> <file.json|-> [--pretty]
 commands:
   solve     exact solve of one circuit (every code: voutV or ioutA, irefA, routOhm)
-  evaluate  trade-study evaluation of a spec
-  netlist   SPICE netlist of one circuit
+  evaluate  trade-study evaluation of a spec (spec, process, options)
+  netlist   SPICE netlist of one circuit ({ circuit }) or of a sized candidate
+            ({ spec, process, candidate, sample: null | { seed, index } })
 '-' reads the JSON document from stdin.`
 
 /** Input documents above this size are refused (a 16-bit string is well under 2 MB). */
@@ -29,12 +32,10 @@ interface Command {
   run: (input: never) => unknown
 }
 
-const COMMANDS: Record<string, () => Promise<Command>> = {
-  solve: async () => ({ schema: solveInputSchema, run: solveCircuit }),
-  netlist: async () => ({ schema: netlistInputSchema, run: exportNetlist }),
-  evaluate: async () => {
-    throw new UsageError('evaluate: not available in this build yet (the evaluation engine is not wired into the CLI)')
-  }
+const COMMANDS: Record<string, Command> = {
+  solve: { schema: solveInputSchema, run: solveCircuit },
+  evaluate: { schema: evaluateInputSchema, run: evaluateSpec },
+  netlist: { schema: netlistInputSchema, run: exportNetlist }
 }
 
 function readInput(source: string): string {
@@ -55,12 +56,11 @@ async function main(argv: string[]): Promise<number> {
   const pretty = argv.includes('--pretty')
   const args = argv.filter(a => a !== '--pretty')
   const [name, source, ...extra] = args
-  const load = name === undefined ? undefined : COMMANDS[name]
-  if (!load || source === undefined || extra.length > 0) {
-    process.stderr.write(`${name && !load ? `unknown command: ${name}\n` : ''}${USAGE}\n`)
+  const command = name !== undefined && Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined
+  if (!command || source === undefined || extra.length > 0) {
+    process.stderr.write(`${name && !command ? `unknown command: ${name}\n` : ''}${USAGE}\n`)
     return 2
   }
-  const command = await load()
   let text: string
   try {
     text = readInput(source)

@@ -80,6 +80,7 @@ describe('cli bad input exits 2 with a message naming the field', () => {
       expect(r.stderr).toMatch(/usage: npm run --silent cli -- <command> <file.json\|->/)
     }
     expect(cli(['simulate', 'x.json']).stderr).toMatch(/^unknown command: simulate/)
+    expect(cli(['constructor', 'x.json']).stderr).toMatch(/^unknown command: constructor/)
   })
 
   it('reports a missing file without a stack trace', () => {
@@ -103,5 +104,43 @@ describe('cli netlist', () => {
     const r = cli(['netlist', file('badnet.json', { circuit: { ...ladder(4), bits: 99 } })])
     expect(r.code).toBe(2)
     expect(r.stderr).toMatch(/^circuit\.bits: must be an integer from 2 to 16 \(got 99\)/)
+  })
+})
+
+const spec = {
+  bits: 8, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 1e-12, inlTargetLsb: 0.5, dnlTargetLsb: 0.5,
+  yieldTarget: 0.997, areaBudgetMm2: 0.1, glitchLimitVs: 1e-9, powerBudgetW: 0.01
+}
+const proc = { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'single' }
+
+describe('cli evaluate', () => {
+  it('evaluates a spec and prints ranked candidates', () => {
+    const r = cli(['evaluate', file('eval.json', { spec, process: proc, options: { trials: 20 } })])
+    expect(r.code).toBe(0)
+    const out = JSON.parse(r.stdout)
+    expect(out.candidates.length).toBeGreaterThan(5)
+    expect(out.candidates.map((c: { id: string }) => c.id)).toContain('r2r-voltage')
+  })
+
+  it('rejects too many Monte Carlo trials, naming the field and the cap', () => {
+    const r = cli(['evaluate', file('eval-many.json', { spec, process: proc, options: { trials: 10_000_000 } })])
+    expect(r.code).toBe(2)
+    expect(r.stderr).toMatch(/^options\.trials: must be an integer from 0 to \d+/)
+  })
+
+  it('rejects an out-of-range spec field', () => {
+    const r = cli(['evaluate', file('eval-bits.json', { spec: { ...spec, bits: 24 }, process: proc })])
+    expect(r.code).toBe(2)
+    expect(r.stderr).toMatch(/^spec\.bits: must be an integer from 2 to 16 \(got 24\)/)
+  })
+})
+
+describe('cli netlist of a candidate', () => {
+  it('exports a sized Monte Carlo sample of a segmented candidate', () => {
+    const r = cli(['netlist', file('cand.json', { spec, process: proc, candidate: { topology: 'segmented', unaryBits: 3 }, sample: { seed: 4, index: 1 } })])
+    expect(r.code).toBe(0)
+    const out = JSON.parse(r.stdout)
+    expect(out.netlist).toContain('Monte Carlo sample index 1 of seed 4')
+    expect(out.circuit.unaryLegsOhm).toHaveLength(7)
   })
 })

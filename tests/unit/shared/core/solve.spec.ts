@@ -95,6 +95,30 @@ describe('check values (MODELS-style table, labels beside each)', () => {
   })
 })
 
+describe('two-stage string boundary effects (MODELS.md §2.5)', () => {
+  const twoStage = (m: number, l: number, rc: number, buffered: boolean, os?: [number, number]): SolveInput => ({
+    topology: 'two-stage-string', bits: m + l, coarseBits: m, vrefV: 1, coarseOhm: Array(2 ** m).fill(rc),
+    fineOhm: Array(2 ** l).fill(1), buffered, ...(os ? { bufferOffsetV: os } : {})
+  })
+  const dnlAt = (c: SolveInput, k: number) => {
+    const v = solveCircuit(c).codes.map(e => e.voutV!)
+    const lsb = (v.at(-1)! - v[0]!) / (v.length - 1)
+    return (v[k]! - v[k - 1]!) / lsb - 1
+  }
+
+  it('unbuffered: boundary DNL ≈ R_c / R_f LSB for R_f ≫ R_c (derived, first order [D], ±5 %)', () => {
+    for (const ratio of [0.01, 0.002]) expect(rel(dnlAt(twoStage(3, 5, ratio, false), 4 * 32), ratio)).toBeLessThan(0.05)
+  })
+
+  it('buffered: the buffers\' offset difference adds directly to the boundary DNL (derived [D], ±2 %)', () => {
+    const vLsb = 1 / 256
+    const offset = 0.1 * vLsb
+    const dnl = dnlAt(twoStage(4, 4, 1, true, [0, offset]), 5 * 16)
+    expect(rel(dnl, -(offset / vLsb) * (1 - 2 ** -4))).toBeLessThan(0.02)
+    expect(Math.abs(dnlAt(twoStage(4, 4, 1, true), 5 * 16))).toBeLessThan(1e-12)
+  })
+})
+
 describe('exact solve against a dense nodal reference, every code', () => {
   const cases: Array<[Topology, Record<string, unknown>]> = [
     ['string', { bits: 4, switchOhm: 120 }],

@@ -43,27 +43,21 @@ export function gaussSolve(a: number[][], b: number[]): number[] {
   return x
 }
 
-/**
- * Node voltages of a resistor network with some nodes fixed by ideal sources ('0' is ground)
- * and optional current injections (A, into the node).
- */
-export function solveNodal(
-  resistors: Resistor[],
-  fixed: Record<string, number>,
-  inject: Record<string, number> = {}
-): NodalSolution {
-  const fixedAll: Record<string, number> = { 0: 0, ...fixed }
-  const free: string[] = []
+interface Assembled {
+  index: Map<string, number>
+  a: number[][]
+  b: number[]
+}
+
+/** Conductance matrix and source vector over the free (non-fixed) nodes. */
+function assemble(resistors: Resistor[], fixedAll: Record<string, number>, inject: Record<string, number>): Assembled {
   const index = new Map<string, number>()
   for (const r of resistors) {
     for (const n of [r.a, r.b]) {
-      if (!(n in fixedAll) && !index.has(n)) {
-        index.set(n, free.length)
-        free.push(n)
-      }
+      if (!(n in fixedAll) && !index.has(n)) index.set(n, index.size)
     }
   }
-  const m = free.length
+  const m = index.size
   const a = Array.from({ length: m }, () => new Array<number>(m).fill(0))
   const b = new Array<number>(m).fill(0)
   for (const [node, i] of Object.entries(inject)) {
@@ -85,7 +79,21 @@ export function solveNodal(
       b[ib]! += g * fixedAll[r.a]!
     }
   }
-  const x = m > 0 ? gaussSolve(a, b) : []
+  return { index, a, b }
+}
+
+/**
+ * Node voltages of a resistor network with some nodes fixed by ideal sources ('0' is ground)
+ * and optional current injections (A, into the node).
+ */
+export function solveNodal(
+  resistors: Resistor[],
+  fixed: Record<string, number>,
+  inject: Record<string, number> = {}
+): NodalSolution {
+  const fixedAll: Record<string, number> = { 0: 0, ...fixed }
+  const { index, a, b } = assemble(resistors, fixedAll, inject)
+  const x = b.length > 0 ? gaussSolve(a, b) : []
   const v = (node: string): number => {
     if (node in fixedAll) return fixedAll[node]!
     const k = index.get(node)

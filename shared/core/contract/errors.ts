@@ -20,12 +20,13 @@ export interface FormattedError {
 export const MAX_LISTED_ISSUES = 20
 const MAX_IN_MESSAGE = 3
 
-/** Renders a zod issue path as `a.b[3].c`. */
+/** Renders a zod issue path as `a.b[3].c`; keys that are not plain names are quoted, `["my key"]`. */
 export function formatPath(path: readonly PropertyKey[]): string {
   let out = ''
   for (const key of path) {
     if (typeof key === 'number') out += `[${key}]`
-    else out += out === '' ? String(key) : `.${String(key)}`
+    else if (typeof key === 'string' && /^[A-Za-z_$][\w$]*$/.test(key)) out += out === '' ? key : `.${key}`
+    else out += `[${JSON.stringify(String(key))}]`
   }
   return out === '' ? '(input)' : out
 }

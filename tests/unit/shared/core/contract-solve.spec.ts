@@ -1,7 +1,9 @@
+import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { formatIssues, formatPath } from '#shared/core/contract/errors'
 import { netlistInputSchema } from '#shared/core/contract/netlist'
 import { MAX_BITS, MIN_BITS, solveInputSchema } from '#shared/core/contract/solve'
+import { solveCircuit } from '#shared/core/solve/index'
 
 const ladder = (n: number) => ({
   topology: 'r2r-voltage', bits: n, vrefV: 2.5, legsOhm: Array(n).fill(2e4), seriesOhm: Array(n - 1).fill(1e4), terminationOhm: 2e4
@@ -76,6 +78,7 @@ describe('solve input validation messages name the field and the allowed range',
   it('formats nested paths with dots and indices', () => {
     expect(formatPath(['circuit', 'legsOhm', 3])).toBe('circuit.legsOhm[3]')
     expect(formatPath([])).toBe('(input)')
+    expect(formatPath(['a', 'my key', 0])).toBe('a["my key"][0]')
     const r = netlistInputSchema.safeParse({ circuit: { ...ladder(3), legsOhm: [1, -1, 1] } })
     if (r.success) throw new Error('expected failure')
     expect(formatIssues(r.error).message).toMatch(/^circuit\.legsOhm\[1\]: must be a finite number greater than 0/)
@@ -84,5 +87,21 @@ describe('solve input validation messages name the field and the allowed range',
   it('refuses a netlist note that could break out of its comment line', () => {
     const r = netlistInputSchema.safeParse({ circuit: ladder(3), note: 'x\n.control\nshell rm -rf /' })
     expect(r.success).toBe(false)
+  })
+})
+
+describe('nothing crashes on arbitrary input', () => {
+  it('validation never throws and every failure formats to a message with a field path', () => {
+    const field = fc.constantFrom('topology', 'bits', 'vrefV', 'switchOhm', 'legsOhm', 'seriesOhm', 'terminationOhm', 'unitsOhm', 'unaryBits', 'extra')
+    const junk = fc.oneof(fc.anything(), fc.double(), fc.integer({ min: -5, max: 40 }), fc.array(fc.double(), { maxLength: 20 }))
+    fc.assert(fc.property(fc.oneof(fc.anything(), fc.tuple(field, junk)), (x) => {
+      const input = Array.isArray(x) && x.length === 2 && typeof x[0] === 'string' ? { ...ladder(4), [x[0]]: x[1] } : x
+      const r = solveInputSchema.safeParse(input)
+      if (r.success) {
+        for (const c of solveCircuit(r.data).codes) expect(Number.isFinite(c.voutV ?? c.ioutA)).toBe(true)
+      } else {
+        expect(formatIssues(r.error).message).toMatch(/^(\(input\)|[A-Za-z_$[]).*?: \S/)
+      }
+    }), { numRuns: 300 })
   })
 })

@@ -6,6 +6,7 @@
 import { writeFileSync } from 'node:fs'
 import type { BenchRow } from './bench/solve'
 import { runSolveBench } from './bench/solve'
+import { runApiBench } from './bench/api'
 
 interface Section {
   section: string
@@ -13,7 +14,8 @@ interface Section {
 }
 
 const SECTIONS: Section[] = [
-  { section: 'solve', run: runSolveBench }
+  { section: 'solve', run: runSolveBench },
+  { section: 'api', run: runApiBench }
   // other sections (Monte Carlo / evaluation, API) go here
 ]
 

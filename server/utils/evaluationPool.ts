@@ -27,7 +27,8 @@ function workerFile(): string | null {
 function usePool(): Piscina | null {
   if (pool === undefined) {
     const filename = workerFile()
-    pool = filename ? new Piscina({ filename, maxThreads: Math.max(1, availableParallelism()), idleTimeout: 60_000 }) : null
+    // Lower priority for Monte Carlo threads, so request handling on the main thread wins the CPU.
+    pool = filename ? new Piscina({ filename, maxThreads: Math.max(1, availableParallelism()), idleTimeout: 60_000, niceIncrement: 10 }) : null
     if (!pool) console.warn('[rungwise] no evaluation worker bundle found; evaluating on the request thread')
   }
   return pool

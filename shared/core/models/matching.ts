@@ -110,3 +110,11 @@ export function analyticMonotonicYield(s: CandidateShape, twoR: TwoRConstruction
   const m = dnlModel(s, twoR)
   return Math.exp(m.steps * Math.log(Math.max(normalCdf(1 / (m.scale * sigmaUnit)), 1e-300)))
 }
+
+/**
+ * Van den Bosch et al. INL bound for unary arrays, σ_u ≤ 1/(2C√(2^N)) with C = Φ⁻¹((1+Y)/2):
+ * a conservative (safe) bound for strings, reported for comparison with the bridge sizing.
+ */
+export function vanDenBoschSigmaUnit(bits: number, yieldTarget: number): number {
+  return 1 / (2 * twoSidedFactor(yieldTarget) * Math.sqrt(2 ** bits))
+}

@@ -58,7 +58,7 @@ function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
       if (env) {
         const { a, s } = binaryLine(w, 0, p.def)
         for (let i = 0; i < bits; i++) {
-          d[i] = w[i]! / s - 2 ** (bits - 1 - i)
+          d[i] = w[i]! / s - (1 << (bits - 1 - i))
         }
         envelopeFromBinary(env, -a / s, d, scratch)
       }
@@ -74,7 +74,7 @@ function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
  */
 function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler {
   const s2 = p.twoR === 'two-units' ? p.sigmaUnit * Math.SQRT1_2 : p.sigmaUnit
-  const g = new Float64Array(2 ** m - 1)
+  const g = new Float64Array((1 << m) - 1)
   const legs = new Float64Array(l)
   const series = new Float64Array(Math.max(0, l - 1))
   const binary = new Float64Array(l)
@@ -109,8 +109,8 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
 function twoStageSampler(s: CandidateShape, p: SamplerParams): TrialSampler {
   const m = s.coarseBits ?? 1
   const l = lowBits(s)
-  const coarse = new Float64Array(2 ** m)
-  const fine = new Float64Array(2 ** l)
+  const coarse = new Float64Array((1 << m))
+  const fine = new Float64Array((1 << l))
   const scratch = createTwoStageScratch(m, l)
   const ratio = coarseToFineRatio(s)
   const buffered = s.buffered === true
@@ -135,9 +135,9 @@ export function createSampler(s: CandidateShape, p: SamplerParams): TrialSampler
     case 'string':
       return {
         key: `string:${s.bits}:${p.sigmaUnit}:${p.def}`,
-        normals: 2 ** s.bits,
+        normals: (1 << s.bits),
         run: (z, out, env) => {
-          stringTrial(z, 2 ** s.bits, p.sigmaUnit, p.def, out, env)
+          stringTrial(z, (1 << s.bits), p.sigmaUnit, p.def, out, env)
         }
       }
     case 'r2r-voltage':

@@ -15,7 +15,7 @@ export interface Envelope {
 /** An empty envelope for 2^bits codes with at most `maxPoints` buckets (a power of two is used). */
 export function createEnvelope(bits: number, maxPoints = 256): Envelope {
   const pointBits = Math.min(bits, Math.floor(Math.log2(Math.max(1, maxPoints))))
-  const count = 2 ** pointBits
+  const count = (1 << pointBits)
   return { bits, shift: bits - pointBits, min: new Float64Array(count).fill(Infinity), max: new Float64Array(count).fill(-Infinity) }
 }
 
@@ -39,7 +39,7 @@ export function widenBucket(env: Envelope, b: number, lo: number, hi: number): v
 
 /** Widens the envelope by the INL of per-code levels against the line a + s·k. */
 export function envelopeFromLevels(env: Envelope, levels: ArrayLike<number>, a: number, s: number): void {
-  const size = 2 ** env.shift
+  const size = (1 << env.shift)
   const inv = 1 / s
   for (let b = 0; b < env.min.length; b++) {
     let lo = Infinity
@@ -73,7 +73,7 @@ export function envelopeFromBinary(env: Envelope, e0: number, d: ArrayLike<numbe
   scratch[0] = e0
   for (let b = 1; b < buckets; b++) {
     const bit = 31 - Math.clz32(b)
-    scratch[b] = scratch[b - 2 ** bit]! + d[highBits - 1 - bit]!
+    scratch[b] = scratch[b - (1 << bit)]! + d[highBits - 1 - bit]!
   }
   for (let b = 0; b < buckets; b++) {
     widenBucket(env, b, scratch[b]! + negLow, scratch[b]! + posLow)
@@ -83,13 +83,13 @@ export function envelopeFromBinary(env: Envelope, e0: number, d: ArrayLike<numbe
 /** Per-bucket minimum and maximum of a per-code series, for charts (bucket start codes in `codes`). */
 export interface DecimatedSeries {
   codes: number[]
-  min: number[]
-  max: number[]
+  min: (number | null)[]
+  max: (number | null)[]
 }
 
 /**
  * Decimates a per-code series into at most `maxPoints` buckets keeping each bucket's extremes.
- * Non-finite values (e.g. R_in = ∞ at code 0) are skipped; a bucket with none left reports ±Infinity.
+ * Non-finite values (e.g. R_in = ∞ at code 0) are skipped; a bucket with none left reports null.
  */
 export function decimateSeries(values: ArrayLike<number>, maxPoints = 256): DecimatedSeries {
   const n = values.length
@@ -106,8 +106,8 @@ export function decimateSeries(values: ArrayLike<number>, maxPoints = 256): Deci
       }
     }
     out.codes.push(start)
-    out.min.push(lo)
-    out.max.push(hi)
+    out.min.push(lo <= hi ? lo : null)
+    out.max.push(lo <= hi ? hi : null)
   }
   return out
 }

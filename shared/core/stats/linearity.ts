@@ -127,16 +127,16 @@ export function binaryLine(w: ArrayLike<number>, offset: number, def: InlDefinit
   let pw = 0
   let pp = 0
   for (let i = 0; i < nb; i++) {
-    const p = 2 ** (nb - 1 - i)
+    const p = (1 << (nb - 1 - i))
     total += w[i]!
     pw += p * w[i]!
     pp += p * p
   }
   if (def === 'endpoint') {
-    return { a: offset, s: total / (2 ** nb - 1) }
+    return { a: offset, s: total / ((1 << nb) - 1) }
   }
   const s = pw / pp
-  return { a: offset + total / 2 - (s * (2 ** nb - 1)) / 2, s }
+  return { a: offset + total / 2 - (s * ((1 << nb) - 1)) / 2, s }
 }
 
 /**
@@ -152,7 +152,7 @@ export function linearityFromBinaryWeights(w: ArrayLike<number>, offset: number,
   let hiK = 0
   let loK = 0
   for (let i = 0; i < nb; i++) {
-    const p = 2 ** (nb - 1 - i)
+    const p = (1 << (nb - 1 - i))
     const d = w[i]! / s - p
     if (d > 0) {
       hi += d
@@ -181,11 +181,11 @@ function binaryDnl(w: ArrayLike<number>, s: number, out: LinearityResult): void 
     const dnl = (wj - below) / s - 1
     if (dnl > out.dnlMaxLsb) {
       out.dnlMaxLsb = dnl
-      out.dnlMaxCode = 2 ** j - 1
+      out.dnlMaxCode = (1 << j) - 1
     }
     if (dnl < out.dnlMinLsb) {
       out.dnlMinLsb = dnl
-      out.dnlMinCode = 2 ** j - 1
+      out.dnlMinCode = (1 << j) - 1
     }
     below += wj
   }

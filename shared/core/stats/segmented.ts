@@ -8,6 +8,7 @@ import type { Envelope } from './envelope'
 import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
+import { segmentedEnvelope } from './segmented-envelope'
 
 /** Work arrays for one segmented shape (2^M entries for the cumulative unary INL). */
 export interface SegmentedScratch {
@@ -17,7 +18,7 @@ export interface SegmentedScratch {
 
 /** Scratch for M unary bits and an envelope of up to `points` buckets. */
 export function createSegmentedScratch(unaryBits: number, points = 256): SegmentedScratch {
-  return { cum: new Float64Array(2 ** unaryBits), bucket: new Float64Array(Math.max(points, 2)) }
+  return { cum: new Float64Array((1 << unaryBits)), bucket: new Float64Array(Math.max(points, 2)) }
 }
 
 function unaryTotalOf(u: ArrayLike<number>, scale: number): number {
@@ -31,12 +32,12 @@ function unaryTotalOf(u: ArrayLike<number>, scale: number): number {
 function segmentedLine(u: ArrayLike<number>, uScale: number, uTotal: number, w: ArrayLike<number>, offset: number, def: InlDefinition): { a: number, s: number } {
   const L = w.length
   const legs = u.length
-  const n = (legs + 1) * 2 ** L
+  const n = (legs + 1) * (1 << L)
   let total = 0
   let pw = 0
   for (let i = 0; i < L; i++) {
     total += w[i]!
-    pw += 2 ** (L - 1 - i) * w[i]!
+    pw += (1 << (L - 1 - i)) * w[i]!
   }
   if (def === 'endpoint') {
     return { a: offset, s: (uTotal + total) / (n - 1) }
@@ -54,7 +55,7 @@ function segmentedLine(u: ArrayLike<number>, uScale: number, uTotal: number, w: 
   const meanCum = sumCum / segs
   const covMU = sumMCum / segs - (legs / 2) * meanCum
   const sumV = n * (offset + meanCum + total / 2)
-  const covKV = 2 ** L * covMU + pw / 4
+  const covKV = (1 << L) * covMU + pw / 4
   const sumKV = n * (covKV + ((n - 1) / 2) * (sumV / n))
   return leastSquaresLine(n, sumV, sumKV)
 }
@@ -71,7 +72,7 @@ export function linearityFromSegmentedWeights(
   out: LinearityResult, scratch: SegmentedScratch, env?: Envelope, uScale = 1, uTotal = Number.NaN
 ): LinearityResult {
   const L = w.length
-  const step = 2 ** L
+  const step = (1 << L)
   const total = Number.isNaN(uTotal) ? unaryTotalOf(u, uScale) : uTotal
   const { a, s } = segmentedLine(u, uScale, total, w, offset, def)
   const e0 = (offset - a) / s
@@ -80,13 +81,13 @@ export function linearityFromSegmentedWeights(
   let posC = 0
   let negC = 0
   for (let i = 0; i < L; i++) {
-    const d = w[i]! / s - 2 ** (L - 1 - i)
+    const d = w[i]! / s - (1 << (L - 1 - i))
     if (d > 0) {
       pos += d
-      posC += 2 ** (L - 1 - i)
+      posC += (1 << (L - 1 - i))
     } else {
       neg += d
-      negC += 2 ** (L - 1 - i)
+      negC += (1 << (L - 1 - i))
     }
   }
   const ext = scanUnary(u, uScale / s, step, e0, scratch, env && env.shift >= L ? env : undefined, neg, pos)
@@ -109,12 +110,12 @@ function segmentedDnl(u: ArrayLike<number>, uScale: number, w: ArrayLike<number>
   out.dnlMinLsb = Infinity
   for (let j = 0; j < L; j++) {
     const wj = w[L - 1 - j]!
-    record(out, (wj - below) / s - 1, 2 ** j - 1)
+    record(out, (wj - below) / s - 1, (1 << j) - 1)
     below += wj
   }
   if (u.length > 0) {
-    record(out, (u[uHi]! * uScale - below) / s - 1, (uHi + 1) * 2 ** L - 1)
-    record(out, (u[uLo]! * uScale - below) / s - 1, (uLo + 1) * 2 ** L - 1)
+    record(out, (u[uHi]! * uScale - below) / s - 1, (uHi + 1) * (1 << L) - 1)
+    record(out, (u[uLo]! * uScale - below) / s - 1, (uLo + 1) * (1 << L) - 1)
   }
 }
 
@@ -147,7 +148,7 @@ interface UnaryExtremes {
 function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, neg: number, pos: number): UnaryExtremes {
   const legs = u.length
   const cum = scratch.cum
-  const group = env ? 2 ** env.shift / step : legs + 1
+  const group = env ? (1 << env.shift) / step : legs + 1
   const r: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0 }
   let uHiV = -Infinity
   let uLoV = Infinity
@@ -190,30 +191,4 @@ function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, sc
     }
   }
   return r
-}
-
-/** Buckets narrower than a segment: each fixes m and the high LSB-section bits. */
-function segmentedEnvelope(env: Envelope, w: ArrayLike<number>, s: number, scratch: SegmentedScratch): void {
-  const L = w.length
-  const cum = scratch.cum
-  const highBits = L - env.shift
-  const perSeg = 2 ** highBits
-  const fixed = scratch.bucket
-  let negLow = 0
-  let posLow = 0
-  fixed[0] = 0
-  for (let i = highBits; i < L; i++) {
-    const d = w[i]! / s - 2 ** (L - 1 - i)
-    negLow += Math.min(0, d)
-    posLow += Math.max(0, d)
-  }
-  for (let h = 1; h < perSeg; h++) {
-    const bit = 31 - Math.clz32(h)
-    const i = highBits - 1 - bit
-    fixed[h] = fixed[h - 2 ** bit]! + w[i]! / s - 2 ** (L - 1 - i)
-  }
-  for (let b = 0; b < env.min.length; b++) {
-    const base = cum[Math.floor(b / perSeg)]! + fixed[b % perSeg]!
-    widenBucket(env, b, base + negLow, base + posLow)
-  }
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { evaluateSpecSchema, type EvaluateSpec } from '../core/contract/evaluate'
 
 /** A finite number in [min, max]; every failure message states the allowed range. */
 export function rangedNumber(min: number, max: number, unit = '') {
@@ -12,22 +13,11 @@ export function rangedInteger(min: number, max: number, coerce = false) {
   return (coerce ? z.coerce.number({ error }) : z.number({ error })).int({ error }).min(min, { error }).max(max, { error })
 }
 
-const SPEC_FIELDS = ['bits', 'vrefV', 'updateRateHz', 'areaBudgetMm2', 'inlTargetLsb', 'dnlTargetLsb', 'yieldTarget']
-
-/** The first spec fields of a study (engine contract names, SI units). */
-export const studySpecDraftSchema = z.object({
-  bits: rangedInteger(2, 16),
-  vrefV: rangedNumber(0.1, 50, 'V'),
-  updateRateHz: rangedNumber(1, 1e10, 'Hz'),
-  areaBudgetMm2: rangedNumber(1e-5, 100, 'mm²'),
-  inlTargetLsb: rangedNumber(0.01, 64, 'LSB'),
-  dnlTargetLsb: rangedNumber(0.01, 0.999, 'LSB'),
-  yieldTarget: rangedNumber(0.5, 0.999999)
-}, {
-  error: iss => iss.code === 'unrecognized_keys'
-    ? `is not a spec field (allowed: ${SPEC_FIELDS.join(', ')})`
-    : `is required: an object with ${SPEC_FIELDS.join(', ')}`
-}).strict()
+/**
+ * A study's spec is the engine's spec (every field of the evaluate contract, SI units); the ranges
+ * and messages are the engine's own, so the form, the API and the CLI agree.
+ */
+export const studySpecSchema = evaluateSpecSchema
 
 const TITLE_ERROR = 'is required, 1 to 200 characters'
 
@@ -35,7 +25,7 @@ export const studyCreateSchema = z.object({
   title: z.string({ error: TITLE_ERROR }).trim().min(1, { error: TITLE_ERROR }).max(200, { error: TITLE_ERROR }),
   blockName: z.string({ error: 'must be text of at most 120 characters' }).trim()
     .max(120, { error: 'must be text of at most 120 characters' }).nullish(),
-  spec: studySpecDraftSchema
+  spec: studySpecSchema
 }).strict()
 
 export const studyListQuerySchema = z.object({
@@ -50,5 +40,5 @@ export const signInSchema = z.object({
   password: z.string().max(200)
 })
 
-export type StudySpecDraft = z.infer<typeof studySpecDraftSchema>
+export type StudySpec = EvaluateSpec
 export type StudyCreate = z.infer<typeof studyCreateSchema>

@@ -1,4 +1,4 @@
-import type { StudySpecDraft } from '../schemas/study'
+import type { StudySpec } from '../schemas/study'
 
 export const STUDY_STATUSES = ['draft', 'in_review', 'decided', 'archived'] as const
 export type StudyStatus = typeof STUDY_STATUSES[number]
@@ -9,7 +9,7 @@ export interface StudyDto {
   title: string
   blockName: string | null
   status: StudyStatus
-  spec: StudySpecDraft
+  spec: StudySpec
   version: number
   owner: { id: number, name: string }
   createdAt: string

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { studyCreateSchema, studyListQuerySchema } from '../../../../shared/schemas/study'
 
-const SPEC = { bits: 12, vrefV: 2.5, updateRateHz: 1e6, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.997 }
+// The full engine spec (SI units); loadResistanceOhm, monotonicRequired and refSourceOhm have defaults.
+const SPEC = { bits: 12, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 10e-12, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.997, areaBudgetMm2: 0.05, glitchLimitVs: 50e-12, powerBudgetW: 1e-3 }
 
 function issues(value: unknown) {
   const r = studyCreateSchema.safeParse(value)
@@ -9,14 +10,16 @@ function issues(value: unknown) {
 }
 
 describe('study schema (shared by the form and POST /api/studies)', () => {
-  it('accepts a complete study and trims the title', () => {
+  it('accepts a complete study, trims the title and fills the engine defaults', () => {
     const r = studyCreateSchema.parse({ title: '  Trim DAC  ', spec: SPEC })
     expect(r.title).toBe('Trim DAC')
+    expect(r.spec).toMatchObject({ loadResistanceOhm: null, monotonicRequired: true, refSourceOhm: 0 })
   })
 
   it('names the field and its allowed range in every message', () => {
-    expect(issues({ title: 'x', spec: { ...SPEC, bits: 17 } })).toEqual(['spec.bits: must be an integer from 2 to 16'])
-    expect(issues({ title: 'x', spec: { ...SPEC, dnlTargetLsb: 1 } })).toEqual(['spec.dnlTargetLsb: must be a number from 0.01 to 0.999 LSB'])
+    expect(issues({ title: 'x', spec: { ...SPEC, bits: 17 } })).toEqual(['spec.bits: must be an integer from 2 to 16 (got 17)'])
+    expect(issues({ title: 'x', spec: { ...SPEC, dnlTargetLsb: 1 } })).toEqual(['spec.dnlTargetLsb: must be a finite number from 0.01 to 0.999 (LSB) (got 1)'])
+    expect(issues({ title: 'x', spec: { ...SPEC, glitchLimitVs: undefined } })[0]).toMatch(/^spec.glitchLimitVs: is missing/)
     expect(issues({ title: '', spec: SPEC })).toEqual(['title: is required, 1 to 200 characters'])
   })
 
@@ -27,8 +30,8 @@ describe('study schema (shared by the form and POST /api/studies)', () => {
   })
 
   it('rejects unknown fields instead of silently dropping them', () => {
-    expect(issues({ title: 'x', spec: { ...SPEC, bitz: 3 } })[0]).toMatch(/^spec: is not a spec field \(allowed: bits, /)
-    expect(issues({ title: 'x' })[0]).toMatch(/^spec: is required/)
+    expect(issues({ title: 'x', spec: { ...SPEC, bitz: 3 } })[0]).toMatch(/^spec: is not a known field \(allowed: bits, /)
+    expect(issues({ title: 'x' })[0]).toMatch(/^spec: must be a JSON object/)
   })
 
   it('coerces and bounds list paging from the query string', () => {

@@ -1,25 +1,25 @@
 import type { Knex } from 'knex'
 import { DEMO_TEAM } from './01-demo-team'
 
-/** Invented demo studies with placeholder specs (engine contract field names, SI units). */
-const STUDIES = [
+/** Invented demo studies with placeholder specs (every engine contract spec field, SI units). */
+export const STUDIES = [
   {
     title: 'Bridge-sensor trim DAC, 12 bit',
     block_name: 'Sensor front end — offset trim',
     owner: 'architect@harrowlake.example',
-    spec: { bits: 12, vrefV: 2.5, updateRateHz: 100e3, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.997 }
+    spec: { bits: 12, vrefV: 2.5, updateRateHz: 100e3, loadCapacitanceF: 10e-12, loadResistanceOhm: null, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.997, monotonicRequired: true, areaBudgetMm2: 0.05, glitchLimitVs: 50e-12, refSourceOhm: 0, powerBudgetW: 1e-3 }
   },
   {
     title: 'Valve positioner set-point DAC, 16 bit',
     block_name: 'Actuator loop — set point',
     owner: 'architect@harrowlake.example',
-    spec: { bits: 16, vrefV: 4.096, updateRateHz: 10e3, areaBudgetMm2: 0.4, inlTargetLsb: 2, dnlTargetLsb: 0.9, yieldTarget: 0.99 }
+    spec: { bits: 16, vrefV: 4.096, updateRateHz: 10e3, loadCapacitanceF: 20e-12, loadResistanceOhm: 1e6, inlTargetLsb: 2, dnlTargetLsb: 0.9, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.4, glitchLimitVs: 200e-12, refSourceOhm: 2, powerBudgetW: 5e-3 }
   },
   {
     title: 'LED bias DAC, 10 bit',
     block_name: 'Optical channel — LED current',
     owner: 'engineer@harrowlake.example',
-    spec: { bits: 10, vrefV: 1.2, updateRateHz: 1e6, areaBudgetMm2: 0.02, inlTargetLsb: 1, dnlTargetLsb: 0.5, yieldTarget: 0.99 }
+    spec: { bits: 10, vrefV: 1.2, updateRateHz: 1e6, loadCapacitanceF: 5e-12, loadResistanceOhm: null, inlTargetLsb: 1, dnlTargetLsb: 0.5, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.02, glitchLimitVs: 20e-12, refSourceOhm: 0, powerBudgetW: 0.5e-3 }
   }
 ]
 

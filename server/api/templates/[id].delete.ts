@@ -1,0 +1,14 @@
+import { idParamSchema } from '#shared/schemas/study'
+
+export default defineApiHandler(async (event) => {
+  const user = await requireUser(event, ...LIBRARY_WRITER_ROLES)
+  const { id } = paramsAs(event, idParamSchema)
+  await useDb().transaction(async (trx) => {
+    const row = await trx('spec_templates').where({ id, team_id: user.teamId }).forUpdate().first('name')
+    if (!row) throw notFound()
+    await trx('spec_templates').where({ id }).delete()
+    await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'template_deleted', targetType: 'spec_template', targetId: id, detail: { name: row.name } }, trx)
+  })
+  setResponseStatus(event, 204)
+  return null
+})

@@ -1,0 +1,36 @@
+import { ENGINE_VERSION } from '#shared/core/version'
+import { revisionCreateSchema } from '#shared/schemas/revisions'
+import { idParamSchema } from '#shared/schemas/study'
+import { STUDY_EDITOR_ROLES } from '#shared/types/auth'
+import type { RevisionDto } from '#shared/types/revisions'
+
+/**
+ * Saves the next immutable revision of a study in one transaction. 409 (with the current version
+ * in `data.currentVersion`) when `baseVersion` is not the study's version: someone saved first.
+ */
+export default defineApiHandler(async (event): Promise<RevisionDto> => {
+  const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
+  const { id } = paramsAs(event, idParamSchema)
+  const body = await readBodyAs(event, revisionCreateSchema)
+  const inputs = { spec: body.spec, process: body.process, options: body.options }
+  const db = useDb()
+  const number = await db.transaction(async (trx) => {
+    const study = await teamStudyRow(trx, user.teamId, id, true)
+    if (study.version !== body.baseVersion) {
+      throw conflict(`baseVersion: revision ${study.version} was saved after the one you edited (${body.baseVersion}); reload the latest and apply your changes again`, study.version)
+    }
+    const evaluated = body.evaluationId === undefined ? null : await evaluationResults(trx, user.teamId, body.evaluationId, inputs)
+    const next = study.version + 1
+    await trx('study_revisions').insert({
+      study_id: id, number: next, spec: JSON.stringify(body.spec), process: JSON.stringify(body.process), options: JSON.stringify(body.options),
+      engine_version: evaluated?.engineVersion ?? ENGINE_VERSION, results: evaluated ? JSON.stringify(evaluated.results) : null,
+      evaluation_id: body.evaluationId ?? null, note: body.note || null, author_id: user.id
+    })
+    await trx('studies').where({ id }).update({ version: next, spec: JSON.stringify(body.spec), updated_at: trx.fn.now() })
+    await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'revision_saved', targetType: 'study', targetId: id, detail: { number: next, withResults: Boolean(evaluated) } }, trx)
+    return next
+  })
+  const row = await studyRevisions(db, id, true).where('r.number', number).first()
+  setResponseStatus(event, 201)
+  return toRevisionDto(row)
+})

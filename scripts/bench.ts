@@ -7,6 +7,8 @@ import { writeFileSync } from 'node:fs'
 import type { BenchRow } from './bench/solve'
 import { runSolveBench } from './bench/solve'
 import { runApiBench } from './bench/api'
+import { runMonteCarloBench } from './bench/montecarlo'
+import { runEvaluateBench } from './bench/evaluate'
 
 interface Section {
   section: string
@@ -15,7 +17,9 @@ interface Section {
 
 const SECTIONS: Section[] = [
   { section: 'solve', run: runSolveBench },
-  { section: 'api', run: runApiBench }
+  { section: 'api', run: runApiBench },
+  { section: 'montecarlo', run: runMonteCarloBench },
+  { section: 'evaluate', run: runEvaluateBench }
   // other sections (Monte Carlo / evaluation, API) go here
 ]
 

@@ -37,27 +37,44 @@ export function intInRange(lo: number, hi: number) {
   return z.number(e).int(e).min(lo, e).max(hi, e)
 }
 
-/** Finite number > 0 (ohms, volts, …). */
-export function positive(unit: string) {
-  const e = says(`must be a finite number greater than 0 (${unit})`)
-  return z.number(e).positive(e)
+/**
+ * Element values the solver accepts (ohms): wide enough for any real resistor or switch, narrow
+ * enough that products and ratios of values stay far from floating-point overflow.
+ */
+export const MIN_OHM = 1e-6
+export const MAX_OHM = 1e15
+/** Largest |voltage| accepted (V). */
+export const MAX_VOLT = 1e6
+/** Smallest reference voltage accepted (V). */
+export const MIN_VREF = 1e-6
+
+/** A bound for a message: 1e-6 and 1e15 rather than 0.000001 and 1000000000000000. */
+export function showBound(x: number): string {
+  const a = Math.abs(x)
+  return a !== 0 && (a >= 1e6 || a < 1e-3) ? x.toExponential().replace('e+', 'e') : String(x)
 }
 
-/** Finite number ≥ 0. */
-export function nonNegative(unit: string) {
-  const e = says(`must be a finite number of at least 0 (${unit})`)
-  return z.number(e).nonnegative(e)
+/** Finite number in [lo, hi] with its unit. */
+export function inRange(lo: number, hi: number, unit: string) {
+  const e = says(`must be a finite number from ${showBound(lo)} to ${showBound(hi)} (${unit})`)
+  return z.number(e).min(lo, e).max(hi, e)
 }
 
-/** Any finite number. */
-export function finite(unit: string) {
-  return z.number(says(`must be a finite number (${unit})`))
+/** Finite number in (0, hi] with its unit. */
+export function positiveUpTo(hi: number, unit: string) {
+  const e = says(`must be a finite number greater than 0 and at most ${showBound(hi)} (${unit})`)
+  return z.number(e).positive(e).max(hi, e)
 }
 
-/** Array of positive finite values (ohms); the exact length is checked against `bits` later. */
-export function positiveArray(unit: string) {
-  const e = says(`must be an array of at most ${MAX_ARRAY_VALUES} positive values (${unit})`)
-  return z.array(positive(unit), e).max(MAX_ARRAY_VALUES, e)
+/** A resistance in [MIN_OHM, MAX_OHM]. */
+export function ohms() {
+  return inRange(MIN_OHM, MAX_OHM, 'ohms')
+}
+
+/** Array of resistances; the exact length is checked against `bits` later. */
+export function ohmsArray() {
+  const e = says(`must be an array of at most ${MAX_ARRAY_VALUES} resistances from ${showBound(MIN_OHM)} to ${showBound(MAX_OHM)} ohms`)
+  return z.array(ohms(), e).max(MAX_ARRAY_VALUES, e)
 }
 
 /** Boolean with a range-stating message. */

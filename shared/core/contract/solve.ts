@@ -5,12 +5,14 @@
  * Supported sizes (the output lists every code, so N is capped at 16 for all topologies):
  * - every topology: `bits` from 2 to 16;
  * - `segmented`: `unaryBits` M from 1 to N − 1 (L = N − M ladder bits);
- * - `two-stage-string`: `coarseBits` M from 1 to N − 1 (L = N − M fine bits).
+ * - `two-stage-string`: `coarseBits` M from 1 to N − 1 (L = N − M fine bits);
+ * - element values from 1e-6 to 1e15 ohms, `switchOhm` from 0 to 1e15, `vrefV` from 1e-6 to 1e6 V
+ *   (every result stays finite; element ratios beyond ~1e12 lose digits to cancellation).
  * Field names are a fixed contract used by scripts: fields may be added, never renamed.
  */
 import { z } from 'zod'
 import {
-  flag, finite, intInRange, lengthMessage, nonNegative, oneOf, positive, positiveArray, says, strictKeys
+  flag, inRange, intInRange, lengthMessage, MAX_OHM, MAX_VOLT, MIN_VREF, ohms, ohmsArray, oneOf, says, strictKeys
 } from './fields'
 
 export const MIN_BITS = 2
@@ -22,8 +24,8 @@ export type Topology = typeof TOPOLOGIES[number]
 const bits = intInRange(MIN_BITS, MAX_BITS)
 const common = {
   bits,
-  vrefV: positive('volts'),
-  switchOhm: nonNegative('ohms').optional()
+  vrefV: inRange(MIN_VREF, MAX_VOLT, 'volts'),
+  switchOhm: inRange(0, MAX_OHM, 'ohms').optional()
 }
 
 function strict<T extends z.core.$ZodLooseShape>(shape: T) {
@@ -45,9 +47,9 @@ function expectLength(ctx: Ctx, path: string, values: unknown, expected: number,
 
 const ladderShape = {
   ...common,
-  legsOhm: positiveArray('ohms'),
-  seriesOhm: positiveArray('ohms'),
-  terminationOhm: positive('ohms')
+  legsOhm: ohmsArray(),
+  seriesOhm: ohmsArray(),
+  terminationOhm: ohms()
 }
 
 function checkLadder(v: { bits: number, legsOhm: number[], seriesOhm: number[] }, ctx: Ctx): void {
@@ -65,7 +67,7 @@ export const r2rCurrentInputSchema = strict({ topology: z.literal('r2r-current')
 export const stringInputSchema = strict({
   topology: z.literal('string'),
   ...common,
-  unitsOhm: positiveArray('ohms'),
+  unitsOhm: ohmsArray(),
   decode: oneOf(['direct', 'tree'] as const).optional()
 }).superRefine((v, ctx) => {
   if (bitsOk(v)) expectLength(ctx, 'unitsOhm', v.unitsOhm, 2 ** v.bits, '2^bits unit resistors')
@@ -75,8 +77,8 @@ export const segmentedInputSchema = strict({
   topology: z.literal('segmented'),
   ...ladderShape,
   unaryBits: intInRange(1, MAX_BITS - 1),
-  unaryLegsOhm: positiveArray('ohms'),
-  jointOhm: positive('ohms')
+  unaryLegsOhm: ohmsArray(),
+  jointOhm: ohms()
 }).superRefine((v, ctx) => {
   if (!bitsOk(v) || !Number.isInteger(v.unaryBits)) return
   if (v.unaryBits > v.bits - 1) {
@@ -94,10 +96,10 @@ export const twoStageInputSchema = strict({
   topology: z.literal('two-stage-string'),
   ...common,
   coarseBits: intInRange(1, MAX_BITS - 1),
-  coarseOhm: positiveArray('ohms'),
-  fineOhm: positiveArray('ohms'),
+  coarseOhm: ohmsArray(),
+  fineOhm: ohmsArray(),
   buffered: flag(),
-  bufferOffsetV: z.tuple([finite('volts'), finite('volts')], says('must be a pair [lowV, highV] of finite volts'))
+  bufferOffsetV: z.tuple([inRange(-MAX_VOLT, MAX_VOLT, 'volts'), inRange(-MAX_VOLT, MAX_VOLT, 'volts')], says('must be a pair [lowV, highV] of volts'))
     .optional()
 }).superRefine((v, ctx) => {
   if (v.bufferOffsetV && !v.buffered) {

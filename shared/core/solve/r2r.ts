@@ -6,7 +6,7 @@
 import type { R2rCurrentInput, R2rVoltageInput } from '../contract/solve'
 import { linearAllCodes, quadraticAllCodes } from './codes'
 import { ladderRoutOhm, ladderWeights } from './ladder'
-import { tridiagonalInverse } from './tridiagonal'
+import { chainInverse } from './tridiagonal'
 import type { CircuitSolution } from './types'
 
 interface LadderValues {
@@ -23,19 +23,18 @@ function legConductances(c: LadderValues): Float64Array {
 }
 
 /**
- * Tridiagonal nodal matrix of the ladder with every leg ended on a source (diag, coupling).
- * With `groundNode0`, node 0 is held at a fixed potential and removed (current mode, V_REF
- * drives it): the result then covers nodes 1 … N−1.
+ * Nodal chain of the ladder with every leg ended on a source: shunt conductances (legs, plus the
+ * termination at node N−1) and series resistances. With `groundNode0`, node 0 is held at a fixed
+ * potential and removed (current mode, V_REF drives it): the chain then covers nodes 1 … N−1 and
+ * series resistor 0 becomes part of node 1's shunt.
  */
-function ladderMatrix(c: LadderValues, g: Float64Array, groundNode0: boolean): { d: Float64Array, cpl: Float64Array } {
+function ladderChain(c: LadderValues, g: Float64Array, groundNode0: boolean): { shunt: Float64Array, series: ArrayLike<number> } {
   const n = g.length
-  const gs = Float64Array.from({ length: n - 1 }, (_, i) => 1 / (c.seriesOhm[i] as number))
-  const d = new Float64Array(n)
-  for (let i = 0; i < n; i++) {
-    d[i] = (g[i] as number) + (i > 0 ? gs[i - 1] as number : 0) + (i < n - 1 ? gs[i] as number : 0)
-  }
-  d[n - 1] = (d[n - 1] as number) + 1 / c.terminationOhm
-  return groundNode0 ? { d: d.subarray(1), cpl: gs.subarray(1) } : { d, cpl: gs }
+  const shunt = Float64Array.from(g)
+  shunt[n - 1] = (shunt[n - 1] as number) + 1 / c.terminationOhm
+  if (!groundNode0) return { shunt, series: c.seriesOhm }
+  shunt[1] = (shunt[1] as number) + 1 / (c.seriesOhm[0] as number)
+  return { shunt: shunt.subarray(1), series: Array.from(c.seriesOhm).slice(1) }
 }
 
 /**
@@ -68,8 +67,8 @@ export function solveR2rVoltage(c: R2rVoltageInput | (LadderValues & { vrefV: nu
   const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
   const value = linearAllCodes(w, c.vrefV, new Float64Array(codes))
   const g = legConductances(c)
-  const { d, cpl } = ladderMatrix(c, g, false)
-  const q = legQuadratic(g, tridiagonalInverse(d, cpl), 0)
+  const { shunt, series } = ladderChain(c, g, false)
+  const q = legQuadratic(g, chainInverse(shunt, series), 0)
   const irefA = quadraticAllCodes(q, n, c.vrefV, new Float64Array(codes))
   const routOhm = new Float64Array(codes).fill(ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, sw))
   return { output: 'voltage', value, irefA, routOhm }
@@ -91,8 +90,8 @@ export function solveR2rCurrent(c: R2rCurrentInput | (LadderValues & { vrefV: nu
   const value = linearAllCodes(w, c.vrefV / rIn, new Float64Array(codes))
   const irefA = new Float64Array(codes).fill(c.vrefV / rIn)
   const g = legConductances(c)
-  const { d, cpl } = ladderMatrix(c, g, true)
-  const q = legQuadratic(g, n > 1 ? tridiagonalInverse(d, cpl) : new Float64Array(0), 1)
+  const { shunt, series } = ladderChain(c, g, true)
+  const q = legQuadratic(g, chainInverse(shunt, series), 1)
   const routOhm = quadraticAllCodes(q, n, 1, new Float64Array(codes))
   for (let k = 0; k < codes; k++) routOhm[k] = 1 / (routOhm[k] as number)
   return { output: 'current', value, irefA, routOhm }

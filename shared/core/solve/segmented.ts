@@ -6,24 +6,17 @@
 import type { SegmentedInput } from '../contract/solve'
 import { linearAllCodes, quadraticAllCodes } from './codes'
 import { segmentedRoutOhm, segmentedWeights } from './ladder'
-import { tridiagonalInverse } from './tridiagonal'
+import { chainInverse } from './tridiagonal'
 import type { CircuitSolution } from './types'
 
-/** Nodal matrix over [output, ladder 0 … L−1]: diagonal and coupling conductances (S). */
-function segmentedMatrix(s: SegmentedInput, gu: Float64Array, g: Float64Array): { d: Float64Array, cpl: Float64Array } {
+/** Nodal chain over [output, ladder 0 … L−1]: shunt conductances (S) and series resistances (ohms). */
+function segmentedChain(s: SegmentedInput, gu: Float64Array, g: Float64Array): { shunt: Float64Array, series: number[] } {
   const l = g.length
-  const gj = 1 / s.jointOhm
-  const d = new Float64Array(l + 1)
-  const cpl = new Float64Array(l)
-  d[0] = gu.reduce((acc, x) => acc + x, 0) + gj
-  cpl[0] = gj
-  for (let i = 0; i < l; i++) {
-    const gsPrev = i > 0 ? 1 / (s.seriesOhm[i - 1] as number) : gj
-    const gsNext = i < l - 1 ? 1 / (s.seriesOhm[i] as number) : 1 / s.terminationOhm
-    d[i + 1] = (g[i] as number) + gsPrev + gsNext
-    if (i < l - 1) cpl[i + 1] = 1 / (s.seriesOhm[i] as number)
-  }
-  return { d, cpl }
+  const shunt = new Float64Array(l + 1)
+  shunt[0] = gu.reduce((acc, x) => acc + x, 0)
+  for (let i = 0; i < l; i++) shunt[i + 1] = g[i] as number
+  shunt[l] = (shunt[l] as number) + 1 / s.terminationOhm
+  return { shunt, series: [s.jointOhm, ...s.seriesOhm] }
 }
 
 /**
@@ -34,8 +27,8 @@ function segmentedMatrix(s: SegmentedInput, gu: Float64Array, g: Float64Array): 
 function segmentedIref(s: SegmentedInput, gu: Float64Array, g: Float64Array, out: Float64Array): void {
   const l = g.length
   const n = l + 1
-  const { d, cpl } = segmentedMatrix(s, gu, g)
-  const h = tridiagonalInverse(d, cpl)
+  const { shunt, series } = segmentedChain(s, gu, g)
+  const h = chainInverse(shunt, series)
   const qb = new Float64Array(l * l)
   const lin = new Float64Array(l)
   for (let i = 0; i < l; i++) {

@@ -58,8 +58,8 @@ describe('cli bad input exits 2 with a message naming the field', () => {
   const cases: Array<[string, unknown, RegExp]> = [
     ['bits out of range', { ...ladder(4), bits: 40 }, /^bits: must be an integer from 2 to 16 \(got 40\)/],
     ['array of the wrong length', { ...ladder(4), legsOhm: [1, 1, 1] }, /^legsOhm: must have 4 values/],
-    ['zero value', { ...ladder(4), terminationOhm: 0 }, /^terminationOhm: must be a finite number greater than 0/],
-    ['negative value', { ...ladder(4), seriesOhm: [1, -2, 1] }, /^seriesOhm\[1\]: must be a finite number greater than 0/],
+    ['zero value', { ...ladder(4), terminationOhm: 0 }, /^terminationOhm: must be a finite number from 1e-6 to 1e15 \(ohms\) \(got 0\)/],
+    ['negative value', { ...ladder(4), seriesOhm: [1, -2, 1] }, /^seriesOhm\[1\]: must be a finite number from .* \(got -2\)/],
     ['non-finite value', '{"topology":"string","bits":2,"vrefV":1,"unitsOhm":[1,1e999,1,1]}', /^unitsOhm\[1\]: .*\(got Infinity\)/],
     ['unknown topology', { ...ladder(4), topology: 'sigma-delta' }, /^topology: must be one of string, r2r-voltage/],
     ['not JSON', '{"topology": ', /^input: must be a JSON document/]

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { ladderRoutOhm, ladderWeights, segmentedRoutOhm, segmentedWeights } from '#shared/core/solve/ladder'
+import { chainInverse } from '#shared/core/solve/tridiagonal'
 import { solveNodal } from '../../../support/dense-nodal'
 import type { Resistor } from '../../../support/dense-nodal'
 import { prng } from '../../../support/random-circuits'
@@ -103,5 +104,28 @@ describe('segmentedWeights', () => {
   it('gives R_out = 2R/2^M = 0.125 R for M = 4 (CV08, derived [D])', () => {
     expect(segmentedRoutOhm(new Array(15).fill(2e4), 1e4, new Array(6).fill(2e4), new Array(5).fill(1e4), 2e4))
       .toBeCloseTo(1250, 6)
+  })
+})
+
+describe('chainInverse', () => {
+  it('inverts the nodal matrix of random chains: G·H = I (dense product check)', () => {
+    const rand = prng(23)
+    for (let trial = 0; trial < 20; trial++) {
+      const n = 1 + Math.floor(rand() * 10)
+      const shunt = Array.from({ length: n }, () => 10 ** (-6 + 4 * rand()))
+      const series = Array.from({ length: n - 1 }, () => 10 ** (2 + 4 * rand()))
+      const h = chainInverse(shunt, series)
+      const g = (i: number, j: number): number => {
+        if (i === j) return shunt[i]! + (i > 0 ? 1 / series[i - 1]! : 0) + (i < n - 1 ? 1 / series[i]! : 0)
+        return Math.abs(i - j) === 1 ? -1 / series[Math.min(i, j)]! : 0
+      }
+      for (let i = 0; i < n; i++) {
+        for (let j = 0; j < n; j++) {
+          let s = 0
+          for (let k = 0; k < n; k++) s += g(i, k) * h[k * n + j]!
+          expect(Math.abs(s - (i === j ? 1 : 0))).toBeLessThan(1e-9)
+        }
+      }
+    }
   })
 })

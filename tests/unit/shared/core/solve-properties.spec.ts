@@ -3,6 +3,7 @@
  */
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
+import { solveInputSchema } from '#shared/core/contract/solve'
 import type { SolveInput } from '#shared/core/contract/solve'
 import { solveCircuit } from '#shared/core/solve/index'
 import { solveNodal } from '../../../support/dense-nodal'
@@ -129,5 +130,27 @@ describe('reference current symmetry', () => {
       const i = solveCircuit(c).codes.map(e => e.irefA)
       for (const x of i) expect(x).toBe(i[0])
     }), { numRuns: 50 })
+  })
+})
+
+describe('extreme element values', () => {
+  const ext = fc.constantFrom(1e-6, 1e15, 1, 1e3)
+  const build = (topology: string, v: number[], sw: number, vrefV: number): unknown => {
+    const pick = (k: number, off: number) => v.slice(off, off + k)
+    switch (topology) {
+      case 'segmented': return { topology, bits: 6, unaryBits: 2, vrefV, switchOhm: sw, unaryLegsOhm: pick(3, 0), jointOhm: v[5], legsOhm: pick(4, 10), seriesOhm: pick(3, 20), terminationOhm: v[30] }
+      case 'string': return { topology, bits: 6, vrefV, switchOhm: sw, unitsOhm: v }
+      case 'two-stage-string': return { topology, bits: 6, coarseBits: 3, vrefV, switchOhm: sw, coarseOhm: pick(8, 0), fineOhm: pick(8, 8), buffered: v[40]! > 1 }
+      default: return { topology, bits: 6, vrefV, switchOhm: sw, legsOhm: pick(6, 0), seriesOhm: pick(5, 10), terminationOhm: v[20] }
+    }
+  }
+
+  it('keeps every result finite anywhere in the accepted ranges (1e-6 … 1e15 ohms, 1e-6 … 1e6 V)', () => {
+    const topologies = fc.constantFrom('r2r-voltage', 'r2r-current', 'segmented', 'string', 'two-stage-string')
+    fc.assert(fc.property(topologies, fc.array(ext, { minLength: 64, maxLength: 64 }), fc.constantFrom(0, 1e-3, 1e15), fc.constantFrom(1e-6, 1, 1e6), (t, v, sw, vref) => {
+      const input = solveInputSchema.parse(build(t, v, sw, vref))
+      const text = JSON.stringify(solveCircuit(input))
+      expect(text).not.toMatch(/NaN|Infinity|"(irefA|voutV|ioutA)":null/)
+    }), { numRuns: 300 })
   })
 })

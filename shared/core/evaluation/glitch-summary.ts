@@ -22,6 +22,8 @@ export interface GlitchSummary {
   switchesToggledMean: number
   distribution: { zeroCount: number, edgesVs: number[], counts: number[] }
   perTransition: DecimatedSeries
+  /** switches toggled per transition k → k + 1 (decimated: bucket min and max) */
+  activity: DecimatedSeries
 }
 
 /** Summarises the glitch of every one-code transition of a candidate. */
@@ -49,6 +51,7 @@ export function summariseGlitch(s: CandidateShape, vLsbV: number, routOhm: Array
     switchesToggledMax: toggledMax,
     switchesToggledMean: toggledSum / count,
     distribution: glitchDistribution(t.totalVs),
-    perTransition: decimateSeries(t.totalVs, points)
+    perTransition: decimateSeries(t.totalVs, points),
+    activity: decimateSeries(t.toggled, points)
   }
 }

@@ -1,49 +1,52 @@
 /**
  * One Monte Carlo trial of a resistor string (MODELS.md §2.1, §4.2) straight from unit normals,
  * without building the level array: r_i = 1 + σ z_i, V(k) ∝ S_k = Σ_{i<k} r_i (code k has k
- * units below its tap). Two passes over 2^N values: sums and DNL extremes, then INL and the
- * envelope. Equal, to rounding, to `linearityFromLevels` on the levels (checked in tests).
+ * units below its tap). A light first pass gets the line (for the endpoint line only Σz); the
+ * second pass gets INL, DNL and the envelope. Equal, to rounding, to `linearityFromLevels` on the
+ * levels (checked in tests).
  */
 import type { Envelope } from './envelope'
 import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
 
-interface PassOne {
-  top: number
-  sumS: number
-  sumKS: number
-  zMax: number
-  zMin: number
-  zMaxK: number
-  zMinK: number
-}
-
-function passOne(z: Float64Array, n: number, sigma: number): PassOne {
+/** Line a + s·k through the levels S_k (endpoint: through S_0 = 0 and S_{n−1}). */
+function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition): { a: number, s: number } {
+  if (def === 'endpoint') {
+    let sumZ = 0
+    for (let k = 0; k < n - 1; k++) {
+      sumZ += z[k]!
+    }
+    return { a: 0, s: (n - 1 + sigma * sumZ) / (n - 1) }
+  }
   let s = 0
   let sumS = 0
   let sumKS = 0
-  let zMax = -Infinity
-  let zMin = Infinity
-  let zMaxK = 0
-  let zMinK = 0
-  for (let k = 0; k < n - 1; k++) {
+  for (let k = 0; k < n; k++) {
     sumS += s
     sumKS += k * s
+    s += 1 + sigma * z[k]!
+  }
+  return leastSquaresLine(n, sumS, sumKS)
+}
+
+/** DNL extremes from the unit values r_k (steps k = 0 … n − 2), written into `out`. */
+function stringDnl(z: Float64Array, n: number, sigma: number, inv: number, out: LinearityResult): void {
+  let zMax = -Infinity
+  let zMin = Infinity
+  for (let k = 0; k < n - 1; k++) {
     const zk = z[k]!
-    s += 1 + sigma * zk
     if (zk > zMax) {
       zMax = zk
-      zMaxK = k
+      out.dnlMaxCode = k
     }
     if (zk < zMin) {
       zMin = zk
-      zMinK = k
+      out.dnlMinCode = k
     }
   }
-  sumS += s
-  sumKS += (n - 1) * s
-  return { top: s, sumS, sumKS, zMax, zMin, zMaxK, zMinK }
+  out.dnlMaxLsb = (1 + sigma * zMax) * inv - 1
+  out.dnlMinLsb = (1 + sigma * zMin) * inv - 1
 }
 
 /**
@@ -51,20 +54,19 @@ function passOne(z: Float64Array, n: number, sigma: number): PassOne {
  * The top resistor (index n − 1) only changes the gain, so endpoint results ignore it.
  */
 export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlDefinition, out: LinearityResult, env?: Envelope): LinearityResult {
-  const p = passOne(z, n, sigma)
-  const line = def === 'endpoint' ? { a: 0, s: p.top / (n - 1) } : leastSquaresLine(n, p.sumS, p.sumKS)
+  const line = stringLine(z, n, sigma, def)
   const inv = 1 / line.s
-  out.dnlMaxLsb = (1 + sigma * p.zMax) * inv - 1
-  out.dnlMinLsb = (1 + sigma * p.zMin) * inv - 1
-  out.dnlMaxCode = p.zMaxK
-  out.dnlMinCode = p.zMinK
-  const size = env ? 2 ** env.shift : n
+  const size = env ? 1 << env.shift : n
   const buckets = n / size
   let hi = -Infinity
   let lo = Infinity
   let s = 0
   let k = 0
   const shiftA = line.a * inv
+  let zHi = -Infinity
+  let zLo = Infinity
+  let zHiK = 0
+  let zLoK = 0
   for (let b = 0; b < buckets; b++) {
     let bHi = -Infinity
     let bLo = Infinity
@@ -85,7 +87,16 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
           out.inlMinCode = k
         }
       }
-      s += 1 + sigma * z[k]!
+      const zk = z[k]!
+      s += 1 + sigma * zk
+      if (zk > zHi) {
+        zHi = zk
+        zHiK = k
+      }
+      if (zk < zLo) {
+        zLo = zk
+        zLoK = k
+      }
     }
     if (env) {
       widenBucket(env, b, bLo, bHi)
@@ -93,5 +104,14 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
   }
   out.inlMaxLsb = hi
   out.inlMinLsb = lo
+  // the extremes seen include the top unit, which no one-code step uses: rescan if it is one of them
+  if (zHiK === n - 1 || zLoK === n - 1) {
+    stringDnl(z, n, sigma, inv, out)
+  } else {
+    out.dnlMaxLsb = (1 + sigma * zHi) * inv - 1
+    out.dnlMinLsb = (1 + sigma * zLo) * inv - 1
+    out.dnlMaxCode = zHiK
+    out.dnlMinCode = zLoK
+  }
   return out
 }

@@ -10,15 +10,23 @@ import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
 
+function sumOf(z: Float64Array, count: number): number {
+  let sum = 0
+  for (let k = 0; k < count; k++) {
+    sum += z[k]!
+  }
+  return sum
+}
+
 /** Line a + s·k through the levels S_k (endpoint: through S_0 = 0 and S_{n−1}). */
 function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition): { a: number, s: number } {
   if (def === 'endpoint') {
-    let sumZ = 0
-    for (let k = 0; k < n - 1; k++) {
-      sumZ += z[k]!
-    }
-    return { a: 0, s: (n - 1 + sigma * sumZ) / (n - 1) }
+    return { a: 0, s: (n - 1 + sigma * sumOf(z, n - 1)) / (n - 1) }
   }
+  return bestFitLine(z, n, sigma)
+}
+
+function bestFitLine(z: Float64Array, n: number, sigma: number): { a: number, s: number } {
   let s = 0
   let sumS = 0
   let sumKS = 0

@@ -47,32 +47,27 @@ const TWO_POW_M32 = 2.3283064365386963e-10
 
 /** A seeded generator of standard normal deviates with a bulk `fill`. Not thread-shared. */
 export class FastNormalGenerator {
-  private s0: number
-  private s1: number
-  private s2: number
-  private s3: number
+  /** xoshiro128** state; an Int32Array keeps one field representation (int32 values exceed V8's small-integer range) */
+  private readonly st = new Int32Array(4)
 
   /** @param seed any safe integer; the same seed always yields the same sequence */
   constructor(seed: number) {
-    const w = splitMix64Words(seed, 4)
-    this.s0 = w[0]! | 0
-    this.s1 = w[1]! | 0
-    this.s2 = w[2]! | 0
-    this.s3 = w[3]! | 0
+    this.st.set(splitMix64Words(seed, 4))
   }
 
   /** Next xoshiro128** output as a signed 32-bit integer. */
   nextInt32(): number {
-    const s1 = this.s1
+    const st = this.st
+    const s1 = st[1]!
     const m = Math.imul(s1, 5)
     const result = Math.imul((m << 7) | (m >>> 25), 9)
     const t = s1 << 9
-    this.s2 ^= this.s0
-    this.s3 ^= s1
-    this.s1 ^= this.s2
-    this.s0 ^= this.s3
-    this.s2 ^= t
-    this.s3 = (this.s3 << 11) | (this.s3 >>> 21)
+    st[2] = st[2]! ^ st[0]!
+    st[3] = st[3]! ^ s1
+    st[1] = s1 ^ st[2]!
+    st[0] = st[0]! ^ st[3]!
+    st[2] = st[2]! ^ t
+    st[3] = (st[3]! << 11) | (st[3]! >>> 21)
     return result
   }
 
@@ -97,10 +92,11 @@ export class FastNormalGenerator {
    * The xoshiro state is kept in locals for speed and written back before the rare slow path.
    */
   fill(out: Float64Array, start = 0, end = out.length): void {
-    let s0 = this.s0
-    let s1 = this.s1
-    let s2 = this.s2
-    let s3 = this.s3
+    const st = this.st
+    let s0 = st[0]!
+    let s1 = st[1]!
+    let s2 = st[2]!
+    let s3 = st[3]!
     for (let k = start; k < end; k++) {
       const m = Math.imul(s1, 5)
       const u = Math.imul((m << 7) | (m >>> 25), 9)
@@ -116,21 +112,21 @@ export class FastNormalGenerator {
       if ((ji ^ (ji >> 31)) < KI[iz]!) {
         out[k] = (ji + 0.5) * WN[iz]!
       } else {
-        this.s0 = s0
-        this.s1 = s1
-        this.s2 = s2
-        this.s3 = s3
+        st[0] = s0
+        st[1] = s1
+        st[2] = s2
+        st[3] = s3
         out[k] = this.slow(iz, ji + 0.5)
-        s0 = this.s0
-        s1 = this.s1
-        s2 = this.s2
-        s3 = this.s3
+        s0 = st[0]!
+        s1 = st[1]!
+        s2 = st[2]!
+        s3 = st[3]!
       }
     }
-    this.s0 = s0
-    this.s1 = s1
-    this.s2 = s2
-    this.s3 = s3
+    st[0] = s0
+    st[1] = s1
+    st[2] = s2
+    st[3] = s3
   }
 
   /** Tail (layer 0) and wedge rejection steps of the ziggurat; loops until a sample is accepted. */
@@ -166,3 +162,7 @@ export class FastNormalGenerator {
     return positive ? R + x : -R - x
   }
 }
+
+// Run both branches of fill() once at load so the optimising compiler sees type feedback for the
+// rare slow path; without it every call deoptimises at its first slow sample.
+new FastNormalGenerator(1).fill(new Float64Array(8192))

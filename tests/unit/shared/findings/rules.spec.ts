@@ -1,0 +1,90 @@
+import { describe, expect, it } from 'vitest'
+import type { EvaluateCandidate } from '#shared/core/contract/evaluate'
+import { BUILT_IN_PACKS } from '#shared/findings/registry'
+import { runFindings } from '#shared/findings/runner'
+import { formatNumber } from '#shared/utils/format'
+import { evaluated } from './engine-fixtures'
+import type { Variant } from './engine-fixtures'
+
+interface Case { variant: Variant, candidate: string, edit?: (c: EvaluateCandidate) => EvaluateCandidate }
+// Every built-in rule: a case the engine's own output fires it on, and one it stays silent on.
+const FIXTURES: Record<string, { fires: Case, quiet: Case }> = {
+  'inl-yield-short': { fires: { variant: 'mcSwitch', candidate: 'r2r-voltage' }, quiet: { variant: 'mcBase', candidate: 'r2r-voltage' } },
+  'dnl-yield-short': { fires: { variant: 'mcSwitch', candidate: 'segmented-m3' }, quiet: { variant: 'mcBase', candidate: 'segmented-m3' } },
+  'monotonic-yield-short': { fires: { variant: 'mcSwitch', candidate: 'r2r-voltage' }, quiet: { variant: 'mcSwitchNoMono', candidate: 'r2r-voltage' } },
+  'monotonicity-at-risk': { fires: { variant: 'bigSwitch10', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'area-over-budget': { fires: { variant: 'tinyArea', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'area-near-budget': { fires: { variant: 'tinyArea', candidate: 'segmented-m4' }, quiet: { variant: 'tinyArea', candidate: 'segmented-m3' } },
+  'update-rate-missed': { fires: { variant: 'base', candidate: 'string-direct' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'settling-margin-thin': { fires: { variant: 'fast', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'glitch-over-limit': { fires: { variant: 'base', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'segmented-m3' } },
+  'major-carry-exposure': { fires: { variant: 'base', candidate: 'segmented-m2' }, quiet: { variant: 'base', candidate: 'segmented-m3' } },
+  'reference-source-too-high': { fires: { variant: 'refR', candidate: 'r2r-voltage' }, quiet: { variant: 'refR', candidate: 'r2r-current' } },
+  'reference-buffer-required': { fires: { variant: 'base', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-current' } },
+  'output-buffer-needed': { fires: { variant: 'base', candidate: 'string-direct' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'output-load-gain-error': { fires: { variant: 'refR', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'current-mode-amp-stability': { fires: { variant: 'base', candidate: 'r2r-current' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'reference-power-over-budget': { fires: { variant: 'base', candidate: 'segmented-m4' }, quiet: { variant: 'base', candidate: 'segmented-m3' } },
+  'matching-beyond-process': { fires: { variant: 'tinyArea', candidate: 'segmented-m3' }, quiet: { variant: 'base', candidate: 'segmented-m3' } },
+  // The engine never sizes a unit below the process minimum; this edit of its output (invented)
+  // stands for a unit sized outside the engine.
+  'unit-below-minimum-size': { fires: { variant: 'base', candidate: 'r2r-voltage', edit: c => ({ ...c, metrics: { ...c.metrics, unitWidthUm: 0.3 } }) }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'unit-at-minimum-size': { fires: { variant: 'base', candidate: 'string-direct' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  'switch-resistance-spoils-weights': { fires: { variant: 'base', candidate: 'r2r-voltage' }, quiet: { variant: 'noSwitchR', candidate: 'r2r-voltage' } },
+  'string-element-growth': { fires: { variant: 'bits10', candidate: 'string-direct' }, quiet: { variant: 'base', candidate: 'string-direct' } },
+  'fewest-unary-msbs': { fires: { variant: 'base', candidate: 'segmented-m2' }, quiet: { variant: 'base', candidate: 'segmented-m3' } }
+}
+
+async function findingsFor(c: Case) {
+  const { input, output } = evaluated(c.variant)
+  const candidates = output.candidates.map(x => (x.id === c.candidate && c.edit ? c.edit(x) : x))
+  const all = await runFindings(input, candidates, BUILT_IN_PACKS)
+  return { all: all.filter(f => f.candidateId === c.candidate), candidate: candidates.find(x => x.id === c.candidate)!, input }
+}
+
+describe('built-in rule pack fixtures', () => {
+  it('has a fires and a quiet fixture for every rule of the pack, and no fixture for a rule it lacks', () => {
+    expect(Object.keys(FIXTURES).sort()).toEqual(BUILT_IN_PACKS[0]!.rules.map(r => r.id).sort())
+  })
+
+  it.each(Object.entries(FIXTURES))('%s fires on its fixture and stays quiet on the other', async (ruleId, { fires, quiet }) => {
+    const hit = (await findingsFor(fires)).all.find(f => f.ruleId === ruleId)
+    expect(hit, `${ruleId} on ${fires.variant}/${fires.candidate}`).toBeDefined()
+    expect(hit!.explanation).not.toMatch(/\{|\}/)
+    expect(hit!.action).not.toMatch(/\{|\}/)
+    expect(hit!.basis.handbook.length).toBeGreaterThan(0)
+    expect(hit!.packId).toBe('rungwise-core')
+    expect((await findingsFor(quiet)).all.map(f => f.ruleId)).not.toContain(ruleId)
+  })
+})
+
+describe('numbers in findings', () => {
+  it('states the area and its share of the budget as the engine computed them', async () => {
+    const { all, candidate, input } = await findingsFor(FIXTURES['area-over-budget']!.fires)
+    const f = all.find(x => x.ruleId === 'area-over-budget')!
+    const area = candidate.metrics.totalAreaMm2!
+    expect(f.explanation).toContain(`${formatNumber(area)} mm²`)
+    // derived: share = total area / budget
+    expect(f.explanation).toContain(`${formatNumber((area / input.spec.areaBudgetMm2) * 100)} %`)
+  })
+
+  it('reports switch-induced DNL within 5 % of the handbook estimate 2^N·r/(6R)', async () => {
+    const { all, candidate, input } = await findingsFor(FIXTURES['switch-resistance-spoils-weights']!.fires)
+    const dnl = Math.abs(candidate.metrics.systematicDnlLsb as number)
+    // handbook §4.4, first-order formula (derived there): 256 · 50 Ω / (6 · 10 kΩ) = 0.213 LSB
+    const estimate = (2 ** input.spec.bits * input.process.switchOhm) / (6 * (input.process.unitOhm as number))
+    expect(dnl / estimate).toBeGreaterThan(0.95)
+    expect(dnl / estimate).toBeLessThan(1.05)
+    expect(all.find(x => x.ruleId === 'switch-resistance-spoils-weights')!.explanation).toContain(`${formatNumber(dnl)} LSB`)
+  })
+
+  it('gives the I-V noise gain as 1 + R/R_out at the extremes of the pin resistance', async () => {
+    const { all, candidate } = await findingsFor(FIXTURES['current-mode-amp-stability']!.fires)
+    const m = candidate.metrics
+    // handbook §2.3: noise gain 1 + R_fb/R_out(code) with R_fb = R
+    const r = m.unitOhm as number
+    const expected = [1 + r / m.routMaxOhm!, 1 + r / (m.routMinOhm as number)].map(v => formatNumber(v))
+    const text = all.find(x => x.ruleId === 'current-mode-amp-stability')!.explanation
+    for (const v of expected) expect(text).toContain(v)
+  })
+})

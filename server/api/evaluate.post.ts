@@ -2,12 +2,12 @@ import { evaluateInputSchema, type EvaluateOutput } from '#shared/core/contract/
 
 /** Synchronous evaluation (fixed contract, for scripts): Monte Carlo runs on worker threads. */
 export default defineApiHandler(async (event): Promise<EvaluateOutput> => {
-  await requireUser(event)
+  const user = await requireUser(event)
   const input = await readBodyAs(event, evaluateInputSchema)
   const controller = new AbortController()
   // A client that goes away stops its queued tasks.
   event.node.res.once('close', () => {
     if (!event.node.res.writableFinished) controller.abort()
   })
-  return await evaluateInPool(input, { signal: controller.signal })
+  return await evaluateWithTeamPacks(user.teamId, input, controller.signal)
 })

@@ -22,11 +22,11 @@ export async function startEvaluationJob(user: SessionUser, input: EvaluateInput
     team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
     input: JSON.stringify(input), engine_version: ENGINE_VERSION
   })
-  void runJob(id!, input)
+  void runJob(id!, user.teamId, input)
   return id!
 }
 
-async function runJob(id: number, input: EvaluateInput): Promise<void> {
+async function runJob(id: number, teamId: number, input: EvaluateInput): Promise<void> {
   const db = useDb()
   const controller = new AbortController()
   running.set(id, controller)
@@ -34,6 +34,7 @@ async function runJob(id: number, input: EvaluateInput): Promise<void> {
     await db('evaluations').where({ id }).update({ status: 'running', heartbeat_at: new Date() })
     const result = await evaluateInPool(input, {
       signal: controller.signal,
+      packs: await enabledTeamPacks(teamId),
       onProgress: async ({ done }) => {
         const row = await db('evaluations').where({ id }).first('status')
         if (row?.status === 'cancelled') controller.abort()

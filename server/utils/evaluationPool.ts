@@ -6,6 +6,8 @@ import { fileURLToPath } from 'node:url'
 import { Piscina } from 'piscina'
 import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
+import { applyFindings } from '#shared/findings'
+import type { RulePack } from '#shared/findings/schema'
 
 type Task = ReturnType<typeof planEvaluation>[number]
 type Part = ReturnType<typeof runEvaluationTask>
@@ -46,8 +48,10 @@ export interface EvaluationProgress { done: number, total: number }
 /**
  * Evaluates a validated input with every Monte Carlo task on a worker thread, so requests keep
  * being served meanwhile. Tasks queue in the pool; `onProgress` fires after each finished task.
+ * The merged output then gets findings, ranking and recommendation from the built-in rule packs
+ * plus `packs` (the team's enabled ones).
  */
-export async function evaluateInPool(input: EvaluateInput, options: { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void> } = {}): Promise<EvaluateOutput> {
+export async function evaluateInPool(input: EvaluateInput, options: { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void>, packs?: readonly RulePack[] } = {}): Promise<EvaluateOutput> {
   const tasks = planEvaluation(input)
   // Every queued task listens on the one signal.
   if (options.signal) setMaxListeners(tasks.length + 10, options.signal)
@@ -58,7 +62,7 @@ export async function evaluateInPool(input: EvaluateInput, options: { signal?: A
     await options.onProgress?.({ done, total: tasks.length })
     return part
   }))
-  return mergeEvaluation(input, parts)
+  return await applyFindings(input, mergeEvaluation(input, parts), options.packs ?? [])
 }
 
 /** Number of tasks an input splits into (for progress reporting before the run starts). */

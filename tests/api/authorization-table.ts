@@ -1,4 +1,5 @@
 import type { Knex } from 'knex'
+import { RULE_PACK_ROWS } from './authorization-rule-packs'
 
 /** Kinds of caller: no session, each role of the demo team, and an admin of another team. */
 export type Who = 'signedOut' | 'admin' | 'architect' | 'engineer' | 'manager' | 'otherTeam'
@@ -69,5 +70,6 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
     route: 'DELETE /api/evaluations/:id',
     expect: { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404 },
     request: async f => ({ path: `/api/evaluations/${await ownJob(f)}` })
-  }
+  },
+  ...RULE_PACK_ROWS
 ]

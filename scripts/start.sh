@@ -24,6 +24,19 @@ if [ -z "${NUXT_AUTH_SECRET:-}" ]; then
   export NUXT_AUTH_SECRET
 fi
 
+# The local SMTP catcher stands in for a mail service (development only).
+MAIL_PORT="${RW_MAIL_PORT:-2525}"
+MAIL_DIR="$ROOT/.data/mail-catcher"
+if [ -z "${NUXT_SMTP_URL:-}" ]; then
+  if ! (exec 3<>"/dev/tcp/127.0.0.1/$MAIL_PORT") 2>/dev/null; then
+    mkdir -p "$MAIL_DIR"
+    setsid nohup node --import tsx scripts/mail-catcher.ts --port "$MAIL_PORT" --dir "$MAIL_DIR" >"$ROOT/.data/mail-catcher.log" 2>&1 < /dev/null &
+    for _ in $(seq 1 100); do (exec 3<>"/dev/tcp/127.0.0.1/$MAIL_PORT") 2>/dev/null && break; sleep 0.1; done
+  fi
+  export NUXT_SMTP_URL="smtp://127.0.0.1:$MAIL_PORT" NUXT_MAIL_CATCHER_DIR="$MAIL_DIR" NUXT_PUBLIC_MAIL_CATCHER=true
+fi
+export NUXT_APP_URL="${NUXT_APP_URL:-http://$HOST:$PORT}"
+
 stale=1
 if [ -f .output/nitro.json ]; then
   stale="$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json pages components layouts middleware composables stores server shared assets public rules -newer .output/nitro.json -type f 2>/dev/null | head -n 1 | wc -l)"
@@ -41,6 +54,7 @@ Demo sign-ins (invented accounts of the fictional Harrow Lake Instruments), pass
   architect@harrowlake.example   architect
   engineer@harrowlake.example    engineer
   manager@harrowlake.example     manager (program manager: reads and comments)
+Mail goes to the local catcher on port $MAIL_PORT; admins read it under "Caught mail".
 Stop with Ctrl+C; the database keeps running until: npm run db:stop
 
 INFO

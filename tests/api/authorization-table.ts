@@ -71,5 +71,18 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
     expect: { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404 },
     request: async f => ({ path: `/api/evaluations/${await ownJob(f)}` })
   },
-  ...RULE_PACK_ROWS
+  ...RULE_PACK_ROWS,
+  { route: 'GET /api/team', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
+  {
+    route: 'POST /api/team/invitations',
+    expect: { signedOut: 401, admin: 201, architect: 403, engineer: 403, manager: 403, otherTeam: 201 },
+    request: (_f, who) => ({ body: { email: `matrix-${who}-${Date.now()}@invite.example`, name: 'Matrix Invitee', role: 'engineer' } })
+  },
+  { route: 'GET /api/invitations/:token', expect: { signedOut: 404 }, request: () => ({ path: '/api/invitations/unknown-token-0123456789abc' }) },
+  {
+    route: 'POST /api/invitations/:token/accept',
+    expect: { signedOut: 410 },
+    request: () => ({ path: '/api/invitations/unknown-token-0123456789abc/accept', body: { password: 'long-enough-password' } })
+  },
+  { route: 'GET /api/admin/mail', expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 200 }, request: () => ({}) }
 ]

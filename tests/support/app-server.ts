@@ -9,11 +9,11 @@ export const SERVER_ENTRY = `${root}.output/server/index.mjs`
 export interface AppServer { url: string, port: number, process: ChildProcess }
 
 /** Starts the built Nitro server against the given database and waits for /api/health. */
-export async function startAppServer(databaseUrl: string, env: Record<string, string> = {}): Promise<AppServer> {
+export async function startAppServer(databaseUrl: string, env: Record<string, string> | ((port: number) => Record<string, string>) = {}): Promise<AppServer> {
   if (!existsSync(SERVER_ENTRY)) throw new Error('No build found: run `npx nuxi build` first (npm test does it)')
   const port = await freePort()
   const child = spawn(process.execPath, [SERVER_ENTRY], {
-    env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), NUXT_DATABASE_URL: databaseUrl, NUXT_AUTH_SECRET: 'test-secret-0123456789-abcdefghijklmnop', ...env },
+    env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), NUXT_DATABASE_URL: databaseUrl, NUXT_AUTH_SECRET: 'test-secret-0123456789-abcdefghijklmnop', NUXT_APP_URL: `http://127.0.0.1:${port}`, ...(typeof env === 'function' ? env(port) : env) },
     stdio: ['ignore', 'pipe', 'pipe']
   })
   let log = ''

@@ -90,13 +90,14 @@ export function linearityFromSegmentedWeights(
       negC += (1 << (L - 1 - i))
     }
   }
-  const ext = scanUnary(u, uScale / s, step, e0, scratch, env && env.shift >= L ? env : undefined, neg, pos)
+  const fine = env !== undefined && env.shift < L
+  const ext = scanUnary(u, uScale / s, step, e0, scratch, env && !fine ? env : undefined, fine, neg, pos)
   out.inlMaxLsb = ext.hiV + pos
   out.inlMinLsb = ext.loV + neg
   out.inlMaxCode = ext.hiM * step + posC
   out.inlMinCode = ext.loM * step + negC
   segmentedDnl(u, uScale, w, s, out, ext.uHi, ext.uLo)
-  if (env && env.shift < L) {
+  if (env && fine) {
     segmentedEnvelope(env, w, s, scratch)
   }
   return out
@@ -142,14 +143,19 @@ interface UnaryExtremes {
 
 /**
  * One pass over the unary legs. With `env` (buckets at least one segment wide) each bucket's
- * range is widened as the pass goes; otherwise the cumulative values are kept in scratch.cum for
+ * range is widened as the pass goes; `keep` stores the cumulative values in scratch.cum for
  * buckets narrower than a segment.
  */
-function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, neg: number, pos: number): UnaryExtremes {
+function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number): UnaryExtremes {
   const legs = u.length
   const cum = scratch.cum
   const group = env ? (1 << env.shift) / step : legs + 1
-  const r: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0 }
+  let hiV = -Infinity
+  let loV = Infinity
+  let hiM = 0
+  let loM = 0
+  let uHi = 0
+  let uLo = 0
   let uHiV = -Infinity
   let uLoV = Infinity
   let c = e0
@@ -158,37 +164,37 @@ function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, sc
     let hi = -Infinity
     const end = Math.min(legs + 1, start + group)
     for (let m = start; m < end; m++) {
-      cum[m] = c
+      if (keep) {
+        cum[m] = c
+      }
       if (c > hi) {
         hi = c
-        if (c > r.hiV) {
-          r.hiV = c
-          r.hiM = m
+        if (c > hiV) {
+          hiV = c
+          hiM = m
         }
       }
       if (c < lo) {
         lo = c
-        if (c < r.loV) {
-          r.loV = c
-          r.loM = m
+        if (c < loV) {
+          loV = c
+          loM = m
         }
       }
-      if (m < legs) {
-        const um = u[m]!
-        c += um * k - step
-        if (um > uHiV) {
-          uHiV = um
-          r.uHi = m
-        }
-        if (um < uLoV) {
-          uLoV = um
-          r.uLo = m
-        }
+      const um = m < legs ? u[m]! : 0
+      c += um * k - step
+      if (um > uHiV && m < legs) {
+        uHiV = um
+        uHi = m
+      }
+      if (um < uLoV && m < legs) {
+        uLoV = um
+        uLo = m
       }
     }
     if (env) {
       widenBucket(env, b, lo + neg, hi + pos)
     }
   }
-  return r
+  return { hiV, loV, hiM, loM, uHi, uLo }
 }

@@ -49,6 +49,7 @@ const TWO_POW_M32 = 2.3283064365386963e-10
 export class FastNormalGenerator {
   /** xoshiro128** state; an Int32Array keeps one field representation (int32 values exceed V8's small-integer range) */
   private readonly st = new Int32Array(4)
+  private readonly one = new Float64Array(1)
 
   /** @param seed any safe integer; the same seed always yields the same sequence */
   constructor(seed: number) {
@@ -76,20 +77,16 @@ export class FastNormalGenerator {
     return ((this.nextInt32() >>> 0) + 0.5) * TWO_POW_M32
   }
 
-  /** One standard normal deviate. */
+  /** One standard normal deviate (the next value of the same stream `fill` writes). */
   next(): number {
-    const u = this.nextInt32()
-    const iz = u & 127
-    const j = (u >> 7) + 0.5
-    if (Math.abs(j) < KN[iz]!) {
-      return j * WN[iz]!
-    }
-    return this.slow(iz, j)
+    this.fill(this.one, 0, 1)
+    return this.one[0]!
   }
 
   /**
-   * Fills out[start, end) with standard normals; identical to calling next() that many times.
-   * The xoshiro state is kept in locals for speed and written back before the rare slow path.
+   * Fills out[start, end) with standard normals. The rejection steps (wedges, tail) consume the
+   * following words of the stream through a small state machine inside the one loop, so the
+   * generator state never leaves local variables and the hot loop has a single shape.
    */
   fill(out: Float64Array, start = 0, end = out.length): void {
     const st = this.st
@@ -97,7 +94,13 @@ export class FastNormalGenerator {
     let s1 = st[1]!
     let s2 = st[2]!
     let s3 = st[3]!
-    for (let k = start; k < end; k++) {
+    let k = start
+    // pending: 0 new sample, 1 wedge test of x at layer iz, 2 tail draw of x, 3 tail test of x
+    let pending = 0
+    let iz = 0
+    let x = 0
+    let positive = false
+    while (k < end) {
       const m = Math.imul(s1, 5)
       const u = Math.imul((m << 7) | (m >>> 25), 9)
       const t = s1 << 9
@@ -107,20 +110,37 @@ export class FastNormalGenerator {
       s0 ^= s3
       s2 ^= t
       s3 = (s3 << 11) | (s3 >>> 21)
-      const iz = u & 127
-      const ji = u >> 7
-      if ((ji ^ (ji >> 31)) < KI[iz]!) {
-        out[k] = (ji + 0.5) * WN[iz]!
+      if (pending === 0) {
+        iz = u & 127
+        const ji = u >> 7
+        if ((ji ^ (ji >> 31)) < KI[iz]!) {
+          out[k++] = (ji + 0.5) * WN[iz]!
+        } else if (iz === 0) {
+          positive = ji >= 0
+          pending = 2
+        } else {
+          x = (ji + 0.5) * WN[iz]!
+          pending = 1
+        }
+        continue
+      }
+      const uni = ((u >>> 0) + 0.5) * TWO_POW_M32
+      if (pending === 1) {
+        if (FN[iz]! + uni * (FN[iz - 1]! - FN[iz]!) < Math.exp(-0.5 * x * x)) {
+          out[k++] = x
+        }
+        pending = 0
+      } else if (pending === 2) {
+        x = -Math.log(uni) / R
+        pending = 3
       } else {
-        st[0] = s0
-        st[1] = s1
-        st[2] = s2
-        st[3] = s3
-        out[k] = this.slow(iz, ji + 0.5)
-        s0 = st[0]!
-        s1 = st[1]!
-        s2 = st[2]!
-        s3 = st[3]!
+        const y = -Math.log(uni)
+        if (y + y >= x * x) {
+          out[k++] = positive ? R + x : -R - x
+          pending = 0
+        } else {
+          pending = 2
+        }
       }
     }
     st[0] = s0
@@ -128,41 +148,4 @@ export class FastNormalGenerator {
     st[2] = s2
     st[3] = s3
   }
-
-  /** Tail (layer 0) and wedge rejection steps of the ziggurat; loops until a sample is accepted. */
-  private slow(iz0: number, j0: number): number {
-    let iz = iz0
-    let j = j0
-    for (;;) {
-      if (iz === 0) {
-        return this.tail(j > 0)
-      }
-      const x = j * WN[iz]!
-      const y = FN[iz]! + this.nextUniform() * (FN[iz - 1]! - FN[iz]!)
-      if (y < Math.exp(-0.5 * x * x)) {
-        return x
-      }
-      const u = this.nextInt32()
-      iz = u & 127
-      j = (u >> 7) + 0.5
-      if (Math.abs(j) < KN[iz]!) {
-        return j * WN[iz]!
-      }
-    }
-  }
-
-  /** Marsaglia's exact sampler for the normal tail beyond R. */
-  private tail(positive: boolean): number {
-    let x: number
-    let y: number
-    do {
-      x = -Math.log(this.nextUniform()) / R
-      y = -Math.log(this.nextUniform())
-    } while (y + y < x * x)
-    return positive ? R + x : -R - x
-  }
 }
-
-// Run both branches of fill() once at load so the optimising compiler sees type feedback for the
-// rare slow path; without it every call deoptimises at its first slow sample.
-new FastNormalGenerator(1).fill(new Float64Array(8192))

@@ -20,6 +20,9 @@ export function cautionsFor(input: EvaluateInput): string[] {
   const out = [...ALWAYS]
   const def = input.options.inlDefinition
   out.push(`INL and its yields use the ${def === 'endpoint' ? 'endpoint (terminal-based)' : 'least-squares best-fit'} line; gain and offset are assumed trimmed to that line, and yields under another definition differ.`)
+  if (def === 'best-fit') {
+    out.push('Sizing and the analytic yields use the endpoint-INL models, which are conservative for best-fit INL; the Monte Carlo yields use the best-fit line.')
+  }
   if (input.options.trials === 0) {
     out.push('No Monte Carlo trials were run: yields are the analytic approximations.')
   }

@@ -1,0 +1,82 @@
+import type { Browser } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { ARTIFACTS, launchBrowser, newContext } from '../support/browser'
+import { DEMO, DEMO_PASSWORD } from '../support/http'
+
+let browser: Browser
+let close: () => Promise<void>
+const baseUrl = () => inject('baseUrl')
+
+beforeAll(async () => {
+  ({ browser, close } = await launchBrowser())
+})
+afterAll(async () => {
+  await close()
+})
+
+describe('admin adds a team rule, dry-runs it and sees it fire', () => {
+  it('writes a rule with the form, sees it fire on the sample study, saves it enabled and sees it in evaluations', async () => {
+    const context = await newContext(browser, baseUrl())
+    const page = await context.newPage()
+    await page.goto('/sign-in')
+    await page.getByLabel('Email').fill(DEMO.admin)
+    await page.getByLabel('Password').fill(DEMO_PASSWORD)
+    await page.getByRole('button', { name: 'Sign in' }).click()
+    await page.waitForURL(/\/studies$/)
+    await page.getByRole('link', { name: 'Rule packs' }).click()
+    await page.waitForURL(/\/rule-packs$/)
+    await page.getByTestId('new-rule-pack').click()
+    await page.waitForURL(/\/rule-packs\/new$/)
+
+    const packId = `journey-${Date.now()}`
+    await page.getByTestId('pack-id').fill(packId)
+    await page.getByTestId('pack-id').blur()
+    const form = page.getByTestId('rule-form')
+    await form.getByLabel('Rule id').fill('switches-over-team-limit')
+    await form.getByLabel('Severity').selectOption('warn')
+    await form.getByLabel('Title').fill('More switches than our layout allows')
+    await form.getByLabel('Field').selectOption('switchCount')
+    await form.getByLabel('Operator').selectOption('greaterThan')
+    await form.getByLabel('Value (SI units)').fill('100')
+    await form.getByLabel('Explanation').fill('{metrics.switchCount|int} switches, over our line of 100.')
+    await form.getByRole('button', { name: 'Add rule to the JSON' }).click()
+    await expect.poll(() => page.getByTestId('pack-json').inputValue()).toContain('switches-over-team-limit')
+    await expect.poll(() => page.getByTestId('pack-valid').textContent()).toContain('2 rules')
+
+    // A broken edit names the rule and the field, live.
+    const good = await page.getByTestId('pack-json').inputValue()
+    await page.getByTestId('pack-json').fill(good.replace('"$.switchCount"', '"$.switches"'))
+    await expect.poll(() => page.getByTestId('pack-problems').textContent()).toContain('rule "switches-over-team-limit"')
+    await page.screenshot({ path: `${ARTIFACTS}/rule-pack-invalid.png`, fullPage: true })
+    await page.getByTestId('pack-json').fill(good)
+
+    await page.getByRole('button', { name: 'Dry run on the sample study' }).click()
+    const fired = page.getByTestId('dry-run-result').locator('[data-rule="switches-over-team-limit"]').first()
+    // the sample's 10-bit strings have 1024 and 2046 switches, segmented m = 7…9 more than 100
+    await expect.poll(() => fired.textContent()).toContain('fires on')
+    expect(await fired.textContent()).toContain('string-direct')
+    await page.screenshot({ path: `${ARTIFACTS}/rule-pack-dry-run.png`, fullPage: true })
+
+    await page.getByTestId('pack-enabled').check()
+    await page.getByRole('button', { name: 'Save pack' }).click()
+    await page.waitForURL(/\/rule-packs\/\d+$/)
+    await expect.poll(() => page.getByTestId('rule-pack-history').textContent()).toContain('created')
+
+    const res = await page.request.post('/api/evaluate', {
+      data: {
+        spec: { bits: 10, vrefV: 2.5, updateRateHz: 1e5, loadCapacitanceF: 1e-12, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99, glitchLimitVs: 1e-9, powerBudgetW: 1e-2 },
+        process: { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' },
+        options: { topologies: ['string'], trials: 0 }
+      }
+    })
+    const body = await res.json() as { findings: { packId: string, candidateId: string }[] }
+    expect(body.findings.filter(f => f.packId === packId).map(f => f.candidateId).sort()).toEqual(['string-direct', 'string-tree'])
+    await page.goto('/rule-packs')
+    await expect.poll(() => page.getByTestId('rule-pack-table').textContent()).toContain(packId)
+    await page.screenshot({ path: `${ARTIFACTS}/rule-packs.png`, fullPage: true })
+    // leave the demo team as it was
+    const id = Number(/\d+$/.exec(page.url())?.[0] ?? 0) || null
+    if (id) await page.request.patch(`/api/rule-packs/${id}`, { data: { version: 1, enabled: false } })
+    await context.close()
+  })
+})

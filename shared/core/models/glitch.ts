@@ -91,21 +91,33 @@ export interface GlitchTable {
 }
 
 /**
- * Glitch impulse of every one-code transition.
+ * Glitch impulse of every one-code transition. The activity of k → k + 1 depends only on the
+ * number j of trailing ones of k (capped at the binary section's width), so it is tabulated once
+ * per j; j = 31 − clz32(k ⊕ (k + 1)).
  * @param routOhm per-code output resistance (ohms) used for the charge term
  */
 export function glitchTable(s: CandidateShape, vLsbV: number, routOhm: ArrayLike<number>, p: GlitchProcess): GlitchTable {
   const count = 2 ** s.bits - 1
   const t: GlitchTable = { totalVs: new Float64Array(count), skewVs: new Float64Array(count), chargeVs: new Float64Array(count), toggled: new Float64Array(count) }
-  const a: Activity = { wOn: 0, wOff: 0, toggled: 0, alpha: 0 }
+  const cap = s.topology === 'segmented' || s.topology === 'two-stage-string' ? lowBits(s) : s.bits
+  const skewByJ = new Float64Array(cap + 1)
+  const toggledByJ = new Float64Array(cap + 1)
+  const alphaByJ = new Float64Array(cap + 1)
+  for (let j = 0; j <= cap; j++) {
+    // the lowest code with j trailing ones (capped) has the activity of every such transition
+    const a = transitionActivity(s, 2 ** j - 1, p)
+    skewByJ[j] = skewImpulseVs(a, vLsbV, p.switchSkewS)
+    toggledByJ[j] = a.toggled
+    alphaByJ[j] = a.alpha
+  }
   for (let k = 0; k < count; k++) {
-    transitionActivity(s, k, p, a)
-    const skew = skewImpulseVs(a, vLsbV, p.switchSkewS)
-    const charge = chargeImpulseVs(a, p.switchChargeC, routOhm[k + 1]!)
-    t.skewVs[k] = skew
+    const j = Math.min(cap, 31 - Math.clz32(k ^ (k + 1)))
+    const r = routOhm[k + 1]!
+    const charge = Number.isFinite(r) ? alphaByJ[j]! * toggledByJ[j]! * p.switchChargeC * r : 0
+    t.skewVs[k] = skewByJ[j]!
     t.chargeVs[k] = charge
-    t.totalVs[k] = skew + charge
-    t.toggled[k] = a.toggled
+    t.totalVs[k] = skewByJ[j]! + charge
+    t.toggled[k] = toggledByJ[j]!
   }
   return t
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { solveCircuitArrays } from '#shared/core/solve/index'
-import { glitchTable } from '#shared/core/models/glitch'
+import { chargeImpulseVs, glitchTable, skewImpulseVs, transitionActivity } from '#shared/core/models/glitch'
 import { rcNoiseVrms, thermalNoiseVrms, ktcNoiseVrms } from '#shared/core/models/noise'
 import { allowedSourceOhm, referenceSummary, sourceInducedInlLsb } from '#shared/core/models/reference'
 import { candidateShapes } from '#shared/core/models/shapes'
@@ -53,6 +53,18 @@ describe('glitch table (MODELS.md §5)', () => {
     })
     expect(worst).toBe(127)
     expect(glitchTable(direct!, 1 / 256, rout, p).totalVs.every(v => v === 0)).toBe(true)
+  })
+  it('tabulated per trailing-ones count, equals the activity of every single transition (brute force, 7 bits)', () => {
+    const p = { switchSkewS: 2e-10, switchChargeC: 3e-15, tapChargeFraction: 0.9, legChargeFraction: 0.2 }
+    const rout = Float64Array.from({ length: 128 }, (_, k) => 1e3 + 17 * k)
+    for (const shape of candidateShapes(7, ALL)) {
+      const t = glitchTable(shape, 1 / 128, rout, p)
+      for (let k = 0; k < 127; k++) {
+        const a = transitionActivity(shape, k, p)
+        expect(t.totalVs[k]).toBeCloseTo(skewImpulseVs(a, 1 / 128, 2e-10) + chargeImpulseVs(a, 3e-15, rout[k + 1]!), 25)
+        expect(t.toggled[k]).toBe(a.toggled)
+      }
+    }
   })
   it('adds the charge term α·toggles·q·R_out', () => {
     const [direct] = candidateShapes(4, ['string'])

@@ -12,6 +12,7 @@ import { analyticSigmas, r2rDnlCoefficient, sigmaForDnl, sigmaForInl, vanDenBosc
 import { BOLTZMANN_J_PER_K, ktcNoiseVrms, thermalNoiseVrms } from '#shared/core/models/noise'
 import type { CandidateShape } from '#shared/core/models/shapes'
 import { candidateShapes } from '#shared/core/models/shapes'
+import { createSampler } from '#shared/core/models/samplers'
 import { matchingAreaUm2, singleCoefficientUm } from '#shared/core/models/sizing'
 import { kolmogorovQuantile } from '#shared/core/stats/kolmogorov'
 import { inlAbsLsb, linearityFromLevels, newLinearityResult } from '#shared/core/stats/linearity'
@@ -93,6 +94,12 @@ describe('mismatch statistics and sizing (MODELS.md §4)', () => {
     const s = analyticSigmas(shapeOf(10, 'r2r-voltage'), 'two-units', 0.001)
     rel(s.dnlSigmaLsb, 0.4575, 5e-3)
     rel(s.inlSigmaLsb, 0.2288, 5e-3)
+  })
+  it('§4.4 equal switch resistance r in every leg: DNL_mid ≈ −2^N·r/(6R) (first order, D; ±3 % at r/R = 0.1 %)', () => {
+    const out = newLinearityResult()
+    createSampler(shapeOf(10, 'r2r-voltage'), { sigmaUnit: 0, switchRatio: 0.001, twoR: 'two-units', offsetSigma: 0, def: 'endpoint' }).run(new Float64Array(20), out)
+    rel(out.dnlMinLsb, -(1024 * 0.001) / 6, 3e-2)
+    expect(out.dnlMinCode).toBe(511)
   })
   it('CV17 10-bit R-2R, 99.7 % DNL yield: σ_u ≤ 0.03679 % (D)', () => {
     rel(sigmaForDnl(shapeOf(10, 'r2r-voltage'), 'two-units', 0.5, 0.997), 0.0003679)

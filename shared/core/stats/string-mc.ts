@@ -2,7 +2,7 @@
  * One Monte Carlo trial of a resistor string (MODELS.md §2.1, §4.2) straight from unit normals,
  * without building the level array: r_i = 1 + σ z_i, V(k) ∝ S_k = Σ_{i<k} r_i (code k has k
  * units below its tap). A light first pass gets the line (for the endpoint line only Σz); the
- * second pass gets INL, DNL and the envelope. Equal, to rounding, to `linearityFromLevels` on the
+ * second pass gets INL (as a running sum), DNL and the envelope. Equal, to rounding, to `linearityFromLevels` on the
  * levels (checked in tests).
  */
 import type { Envelope } from './envelope'
@@ -68,9 +68,12 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
   const buckets = n / size
   let hi = -Infinity
   let lo = Infinity
-  let s = 0
   let k = 0
-  const shiftA = line.a * inv
+  // INL(k) = (S_k − a)/s − k, carried as a running value of size O(1 LSB): each unit adds
+  // r_k/s − 1 = (inv − 1) + σ·inv·z_k. Rounding stays ~n·ε LSB instead of ~n·ε·2^N.
+  let inl = -line.a * inv
+  const c0 = inv - 1
+  const c1 = sigma * inv
   let zHi = -Infinity
   let zLo = Infinity
   let zHiK = 0
@@ -80,7 +83,6 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
     let bLo = Infinity
     const end = k + size
     for (; k < end; k++) {
-      const inl = s * inv - shiftA - k
       if (inl > bHi) {
         bHi = inl
         if (inl > hi) {
@@ -96,7 +98,7 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
         }
       }
       const zk = z[k]!
-      s += 1 + sigma * zk
+      inl += c0 + c1 * zk
       if (zk > zHi) {
         zHi = zk
         zHiK = k

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex'
+import { LIBRARY_ROWS } from './authorization-library'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
 
 /** Kinds of caller: no session, each role of the demo team, and an admin of another team. */
@@ -20,10 +21,10 @@ export interface MatrixRow {
   request: (f: Fixtures, who: Who) => Promise<{ path?: string, body?: unknown }> | { path?: string, body?: unknown }
 }
 
-const SPEC8 = { bits: 8, vrefV: 2.5, updateRateHz: 1e6, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99 }
+const SPEC8 = { bits: 8, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 1e-12, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99, glitchLimitVs: 1e-10, powerBudgetW: 1e-3 }
 const LADDER = { topology: 'r2r-voltage', bits: 3, vrefV: 1, legsOhm: [2e4, 2e4, 2e4], seriesOhm: [1e4, 1e4], terminationOhm: 2e4 }
 const EVALUATE = {
-  spec: { ...SPEC8, loadCapacitanceF: 1e-12, glitchLimitVs: 1e-10, powerBudgetW: 1e-3 },
+  spec: SPEC8,
   process: { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' },
   options: { topologies: ['r2r-voltage'], trials: 50, seed: 1 }
 }
@@ -72,6 +73,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
     request: async f => ({ path: `/api/evaluations/${await ownJob(f)}` })
   },
   ...RULE_PACK_ROWS,
+  ...LIBRARY_ROWS,
   { route: 'GET /api/team', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
   {
     route: 'POST /api/team/invitations',

@@ -1,25 +1,37 @@
 import { acceptHMRUpdate, defineStore } from 'pinia'
-import type { StudySpecDraft } from '#shared/schemas/study'
+import { readSection, writeSection, type FieldEntry, type SectionEntries } from '#shared/schemas/fieldValues'
 
-type SpecEntry = { [K in keyof StudySpecDraft]: number | '' }
+/** Starting entries of a new study's Targets: a common mid-range trim DAC, to be overwritten. */
+const START: SectionEntries = {
+  ...writeSection('spec', {}),
+  bits: '12', vrefV: '2.5 V', updateRateHz: '1 MS/s', loadCapacitanceF: '10 pF', inlTargetLsb: '0.5 LSB', dnlTargetLsb: '0.5 LSB',
+  yieldTarget: '99.7 %', areaBudgetMm2: '0.05 mm²', glitchLimitVs: '50 pV·s', powerBudgetW: '1 mW'
+}
 
-const DEFAULT_SPEC: SpecEntry = { bits: 12, vrefV: 2.5, updateRateHz: 1e6, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.997 }
-
-/** The new-study form's entries, kept while the user moves between pages until the study is created. */
+/** The new-study form's entries (text with units), kept while the user moves between pages until the study is created. */
 export const useStudyDraftStore = defineStore('studyDraft', () => {
   const title = ref('')
   const blockName = ref('')
-  const spec = reactive<SpecEntry>({ ...DEFAULT_SPEC })
-  const dirty = computed(() => title.value !== '' || blockName.value !== ''
-    || (Object.keys(DEFAULT_SPEC) as (keyof SpecEntry)[]).some(k => spec[k] !== DEFAULT_SPEC[k]))
+  const spec = ref<SectionEntries>({ ...START })
+  const read = computed(() => readSection('spec', spec.value))
+  const dirty = computed(() => title.value !== '' || blockName.value !== '' || JSON.stringify(spec.value) !== JSON.stringify(START))
+
+  function setEntry(key: string, value: FieldEntry) {
+    spec.value = { ...spec.value, [key]: value }
+  }
+
+  /** Fills the Targets from a template's spec (SI values). */
+  function applySpec(values: Record<string, unknown>) {
+    spec.value = writeSection('spec', values)
+  }
 
   function reset() {
     title.value = ''
     blockName.value = ''
-    Object.assign(spec, DEFAULT_SPEC)
+    spec.value = { ...START }
   }
 
-  return { title, blockName, spec, dirty, reset }
+  return { title, blockName, spec, read, dirty, setEntry, applySpec, reset }
 })
 
 if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useStudyDraftStore, import.meta.hot))

@@ -73,7 +73,7 @@ export function readField(def: FieldDef, entry: FieldEntry): FieldResult {
   const range = rangeText(def)
   if (range && typeof parsed.value === 'number') {
     const got = def.kind === 'quantity' ? formatQuantity(parsed.value, def.units, 6) : String(parsed.value)
-    return { ok: false, message: `must be ${range} (got ${got})` }
+    return { ok: false, message: `must be ${def.kind === 'integer' ? 'an integer ' : ''}${range} (got ${got})` }
   }
   return { ok: false, message: checked.error.issues[0]?.message ?? 'is not valid' }
 }
@@ -111,4 +111,15 @@ export function writeSection(section: FieldSection, values: Record<string, unkno
     entries[def.key] = writeField(def, value)
   }
   return entries
+}
+
+/** A stored value as a person reads it: normalised units, choice labels, "none", "yes"/"no". */
+export function showField(def: FieldDef, value: unknown): string {
+  if (value === undefined) return '—'
+  if (def.kind === 'flag') return value === true ? 'yes' : 'no'
+  if (def.kind === 'multi') return Array.isArray(value) ? value.map(v => def.choices.find(c => c.value === v)?.label ?? String(v)).join(', ') : '—'
+  if (def.kind === 'choice') return def.choices.find(c => c.value === value)?.label ?? String(value)
+  if (value === null) return def.kind === 'quantity' && def.nullWord ? def.nullWord : '—'
+  if (def.kind === 'integer') return `${String(value)}${def.suffix ? ` ${def.suffix}` : ''}`
+  return typeof value === 'number' ? formatQuantity(value, def.units, 4) : String(value)
 }

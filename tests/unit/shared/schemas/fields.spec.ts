@@ -64,7 +64,7 @@ describe('readField', () => {
     const g = read('spec', 'glitchLimitVs', '0 V*s')
     expect(g.ok ? '' : g.message).toBe('must be above 0 V·s and at most 1 mV·s (got 0 V·s)')
     const b = read('spec', 'bits', '40')
-    expect(b.ok ? '' : b.message).toBe('must be from 2 to 16 (got 40)')
+    expect(b.ok ? '' : b.message).toBe('must be an integer from 2 to 16 (got 40)')
   })
 
   it('takes "none" or nothing as no load resistance, and "auto" as an engine-sized unit resistor', () => {

@@ -1,4 +1,5 @@
 import { fileURLToPath } from 'node:url'
+import { defineVitestProject } from '@nuxt/test-utils/config'
 import { defineConfig } from 'vitest/config'
 
 const root = fileURLToPath(new URL('.', import.meta.url))
@@ -11,6 +12,16 @@ export default defineConfig({
         resolve: { alias },
         test: { name: 'unit', environment: 'node', include: ['tests/unit/**/*.spec.ts'], testTimeout: 60_000 }
       },
+      // Components and stores in a Nuxt runtime (happy-dom); API calls answered by registerEndpoint.
+      await defineVitestProject({
+        test: {
+          name: 'nuxt',
+          include: ['tests/nuxt/**/*.spec.ts'],
+          environment: 'nuxt',
+          environmentOptions: { nuxt: { domEnvironment: 'happy-dom' } },
+          testTimeout: 60_000
+        }
+      }),
       {
         resolve: { alias },
         test: {

@@ -7,10 +7,11 @@
 import { readFileSync } from 'node:fs'
 import type { z } from 'zod'
 import { formatIssues } from '../shared/core/contract/errors'
-import { evaluateInputSchema } from '../shared/core/contract/evaluate'
+import { evaluateInputSchema, type EvaluateInput } from '../shared/core/contract/evaluate'
 import { netlistInputSchema } from '../shared/core/contract/netlist'
 import { solveInputSchema } from '../shared/core/contract/solve'
 import { evaluateSpec } from '../shared/core/evaluate'
+import { applyFindings } from '../shared/findings/index'
 import { exportNetlist } from '../shared/core/netlist/export'
 import { solveCircuit } from '../shared/core/solve/index'
 
@@ -34,7 +35,8 @@ interface Command {
 
 const COMMANDS: Record<string, Command> = {
   solve: { schema: solveInputSchema, run: solveCircuit },
-  evaluate: { schema: evaluateInputSchema, run: evaluateSpec },
+  // the same findings, ranking and recommendation as POST /api/evaluate (built-in rule packs)
+  evaluate: { schema: evaluateInputSchema, run: (input: EvaluateInput) => applyFindings(input, evaluateSpec(input)) },
   netlist: { schema: netlistInputSchema, run: exportNetlist }
 }
 
@@ -73,7 +75,7 @@ async function main(argv: string[]): Promise<number> {
     process.stderr.write(`${formatIssues(parsed.error).message}\n`)
     return 2
   }
-  const result = command.run(parsed.data as never)
+  const result = await command.run(parsed.data as never)
   process.stdout.write(`${JSON.stringify(result, null, pretty ? 2 : undefined)}\n`)
   return 0
 }

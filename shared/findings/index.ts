@@ -39,10 +39,13 @@ export function rankEvaluation(input: EvaluateInput, output: EvaluateOutput, fin
 export async function applyFindings(input: EvaluateInput, output: EvaluateOutput, teamPacks: readonly RulePack[] = [], weights: RankingWeights = DEFAULT_WEIGHTS): Promise<EvaluateOutputWithFindings> {
   const packs = [...BUILT_IN_PACKS, ...teamPacks]
   const findings = await runFindings(input, output.candidates, packs)
+  const ranked = rankEvaluation(input, output, findings, weights)
   return {
     ...output,
+    // One recommendation per evaluation: the engine's smallest-area pick gives way to the ranked one.
+    recommendedId: ranked.recommendation.candidateId,
     findings,
-    ...rankEvaluation(input, output, findings, weights),
+    ...ranked,
     rulePacks: packs.map(p => ({ id: p.id, version: p.version, source: p.source }))
   }
 }

@@ -122,6 +122,15 @@ describe('cli evaluate', () => {
     expect(out.candidates.map((c: { id: string }) => c.id)).toContain('r2r-voltage')
   })
 
+  it('adds the built-in findings, the ranking and one recommendation, as the API does', () => {
+    const r = cli(['evaluate', file('eval-findings.json', { spec, process: proc, options: { trials: 20 } })])
+    const out = JSON.parse(r.stdout)
+    expect(out.findings.length).toBeGreaterThan(0)
+    expect(out.rulePacks.map((p: { id: string }) => p.id)).toContain('rungwise-core')
+    expect(out.ranking.candidates).toHaveLength(out.candidates.length)
+    expect(out.recommendedId).toBe(out.recommendation.candidateId)
+  })
+
   it('rejects too many Monte Carlo trials, naming the field and the cap', () => {
     const r = cli(['evaluate', file('eval-many.json', { spec, process: proc, options: { trials: 10_000_000 } })])
     expect(r.code).toBe(2)

@@ -84,9 +84,10 @@ export class FastNormalGenerator {
   }
 
   /**
-   * Fills out[start, end) with standard normals. The rejection steps (wedges, tail) consume the
-   * following words of the stream through a small state machine inside the one loop, so the
-   * generator state never leaves local variables and the hot loop has a single shape.
+   * Fills out[start, end) with standard normals. The fast path (about 99 % of samples: one word,
+   * one table test) runs on local copies of the state; a rejected first test saves the state and
+   * finishes that sample in `slowSample`, which consumes the following words of the same stream.
+   * Hot loop kept whole (and long) on purpose: the generator step must stay inlined in it.
    */
   fill(out: Float64Array, start = 0, end = out.length): void {
     const st = this.st
@@ -95,11 +96,6 @@ export class FastNormalGenerator {
     let s2 = st[2]!
     let s3 = st[3]!
     let k = start
-    // pending: 0 new sample, 1 wedge test of x at layer iz, 2 tail draw of x, 3 tail test of x
-    let pending = 0
-    let iz = 0
-    let x = 0
-    let positive = false
     while (k < end) {
       const m = Math.imul(s1, 5)
       const u = Math.imul((m << 7) | (m >>> 25), 9)
@@ -110,42 +106,43 @@ export class FastNormalGenerator {
       s0 ^= s3
       s2 ^= t
       s3 = (s3 << 11) | (s3 >>> 21)
-      if (pending === 0) {
-        iz = u & 127
-        const ji = u >> 7
-        if ((ji ^ (ji >> 31)) < KI[iz]!) {
-          out[k++] = (ji + 0.5) * WN[iz]!
-        } else if (iz === 0) {
-          positive = ji >= 0
-          pending = 2
-        } else {
-          x = (ji + 0.5) * WN[iz]!
-          pending = 1
-        }
+      const iz = u & 127
+      const ji = u >> 7
+      if ((ji ^ (ji >> 31)) < KI[iz]!) {
+        out[k++] = (ji + 0.5) * WN[iz]!
         continue
       }
-      const uni = ((u >>> 0) + 0.5) * TWO_POW_M32
-      if (pending === 1) {
-        if (FN[iz]! + uni * (FN[iz - 1]! - FN[iz]!) < Math.exp(-0.5 * x * x)) {
-          out[k++] = x
-        }
-        pending = 0
-      } else if (pending === 2) {
-        x = -Math.log(uni) / R
-        pending = 3
-      } else {
-        const y = -Math.log(uni)
-        if (y + y >= x * x) {
-          out[k++] = positive ? R + x : -R - x
-          pending = 0
-        } else {
-          pending = 2
-        }
+      st[0] = s0
+      st[1] = s1
+      st[2] = s2
+      st[3] = s3
+      const v = this.slowSample(iz, ji)
+      s0 = st[0]!
+      s1 = st[1]!
+      s2 = st[2]!
+      s3 = st[3]!
+      if (v === v) {
+        out[k++] = v
       }
     }
     st[0] = s0
     st[1] = s1
     st[2] = s2
     st[3] = s3
+  }
+
+  /** The rejection steps of a sample whose fast test failed: the value, or NaN (rejected; draw anew). */
+  private slowSample(iz: number, ji: number): number {
+    if (iz !== 0) {
+      const x = (ji + 0.5) * WN[iz]!
+      return FN[iz]! + this.nextUniform() * (FN[iz - 1]! - FN[iz]!) < Math.exp(-0.5 * x * x) ? x : Number.NaN
+    }
+    for (;;) {
+      const x = -Math.log(this.nextUniform()) / R
+      const y = -Math.log(this.nextUniform())
+      if (y + y >= x * x) {
+        return ji >= 0 ? R + x : -R - x
+      }
+    }
   }
 }

@@ -5,10 +5,10 @@
  * every segment) and 2^M − 1 boundary steps u_m − Σ w.
  */
 import type { Envelope } from './envelope'
-import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
 import { segmentedEnvelope } from './segmented-envelope'
+import { scanUnary } from './segmented-scan'
 
 /** Work arrays for one segmented shape (2^M entries for the cumulative unary INL). */
 export interface SegmentedScratch {
@@ -129,72 +129,4 @@ function record(out: LinearityResult, dnl: number, code: number): void {
     out.dnlMinLsb = dnl
     out.dnlMinCode = code
   }
-}
-
-/** Extremes of the cumulative unary INL e0 + Σ_{l<m}(u_l·k − 2^L) over m, and of u itself. */
-interface UnaryExtremes {
-  hiV: number
-  loV: number
-  hiM: number
-  loM: number
-  uHi: number
-  uLo: number
-}
-
-/**
- * One pass over the unary legs. With `env` (buckets at least one segment wide) each bucket's
- * range is widened as the pass goes; `keep` stores the cumulative values in scratch.cum for
- * buckets narrower than a segment.
- */
-function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number): UnaryExtremes {
-  const legs = u.length
-  const cum = scratch.cum
-  const group = env ? (1 << env.shift) / step : legs + 1
-  let hiV = -Infinity
-  let loV = Infinity
-  let hiM = 0
-  let loM = 0
-  let uHi = 0
-  let uLo = 0
-  let uHiV = -Infinity
-  let uLoV = Infinity
-  let c = e0
-  for (let start = 0, b = 0; start <= legs; start += group, b++) {
-    let lo = Infinity
-    let hi = -Infinity
-    const end = Math.min(legs + 1, start + group)
-    for (let m = start; m < end; m++) {
-      if (keep) {
-        cum[m] = c
-      }
-      if (c > hi) {
-        hi = c
-        if (c > hiV) {
-          hiV = c
-          hiM = m
-        }
-      }
-      if (c < lo) {
-        lo = c
-        if (c < loV) {
-          loV = c
-          loM = m
-        }
-      }
-      const um = m < legs ? u[m]! : 0
-      c += um * k - step
-      if (um > uHiV && m < legs) {
-        uHiV = um
-        uHi = m
-      }
-      if (um < uLoV && m < legs) {
-        uLoV = um
-        uLo = m
-      }
-    }
-    if (env) {
-      widenBucket(env, b, lo + neg, hi + pos)
-    }
-  }
-  return { hiV, loV, hiM, loM, uHi, uLo }
 }

@@ -1,0 +1,112 @@
+/**
+ * The unary pass of the segmented INL/DNL extraction (segmented.ts): the cumulative INL at every
+ * segment start, its extremes and their segments, the extreme unary legs, and the envelope
+ * buckets at least one segment wide. O(2^M) per trial; the hot loop of a wide segmentation sweep.
+ */
+import type { Envelope } from './envelope'
+import { widenBucket } from './envelope'
+import type { SegmentedScratch } from './segmented'
+
+/** Extremes of the cumulative unary INL e0 + Σ_{l<m}(u_l·k − 2^L) over m, and of u itself. */
+export interface UnaryExtremes {
+  hiV: number
+  loV: number
+  hiM: number
+  loM: number
+  uHi: number
+  uLo: number
+  uHiV: number
+  uLoV: number
+}
+
+/**
+ * One pass over the unary legs (k = scale per leg in LSB, step = 2^L), group by group. With `env` (buckets at least one segment wide)
+ * each bucket's range is widened as the pass goes; `keep` stores the cumulative values in
+ * scratch.cum for buckets narrower than a segment.
+ */
+export function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number): UnaryExtremes {
+  const legs = u.length
+  const group = env ? (1 << env.shift) / step : legs + 1
+  const x: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0, uHiV: -Infinity, uLoV: Infinity }
+  let c = e0
+  for (let start = 0, b = 0; start <= legs; start += group, b++) {
+    c = unaryGroup(u, k, step, start, Math.min(legs + 1, start + group), c, x, keep ? scratch.cum : null, env, b, neg, pos)
+  }
+  return x
+}
+
+/**
+ * Segments [start, end) of the unary scan from the cumulative value c0; returns the value at
+ * `end`. Extremes by Math.max/min (the cumulative INL is a random walk, whose record branches
+ * mispredict), positions by a replay only when a group beats the running extreme, so values and
+ * positions equal a strict first-occurrence scan.
+ */
+function unaryGroup(u: ArrayLike<number>, k: number, step: number, start: number, end: number, c0: number, x: UnaryExtremes, cum: Float64Array | null, env: Envelope | undefined, b: number, neg: number, pos: number): number {
+  const legs = u.length
+  const stop = Math.min(end, legs)
+  let hi = -Infinity
+  let lo = Infinity
+  let uh = -Infinity
+  let ul = Infinity
+  let c = c0
+  for (let m = start; m < stop; m++) {
+    if (cum) {
+      cum[m] = c
+    }
+    hi = Math.max(hi, c)
+    lo = Math.min(lo, c)
+    const um = u[m]!
+    c += um * k - step
+    uh = Math.max(uh, um)
+    ul = Math.min(ul, um)
+  }
+  if (end > legs) {
+    if (cum) {
+      cum[legs] = c
+    }
+    hi = Math.max(hi, c)
+    lo = Math.min(lo, c)
+  }
+  if (hi > x.hiV) {
+    x.hiV = hi
+    x.hiM = replayTo(u, k, step, start, end, c0, hi)
+  }
+  if (lo < x.loV) {
+    x.loV = lo
+    x.loM = replayTo(u, k, step, start, end, c0, lo)
+  }
+  if (uh > x.uHiV) {
+    x.uHiV = uh
+    x.uHi = firstEqual(u, start, stop, uh)
+  }
+  if (ul < x.uLoV) {
+    x.uLoV = ul
+    x.uLo = firstEqual(u, start, stop, ul)
+  }
+  if (env) {
+    widenBucket(env, b, lo + neg, hi + pos)
+  }
+  return c
+}
+
+/** First m in [start, end) whose cumulative value (replayed from c0 with the same arithmetic) equals target. */
+function replayTo(u: ArrayLike<number>, k: number, step: number, start: number, end: number, c0: number, target: number): number {
+  let c = c0
+  for (let m = start; m < end; m++) {
+    if (c === target) {
+      return m
+    }
+    c += u[m]! * k - step
+  }
+  return end - 1
+}
+
+/** First m in [start, stop) with u[m] === target. */
+function firstEqual(u: ArrayLike<number>, start: number, stop: number, target: number): number {
+  for (let m = start; m < stop; m++) {
+    if (u[m] === target) {
+      return m
+    }
+  }
+  return start
+}

@@ -1,0 +1,77 @@
+import type { EvaluateOutputWithFindings } from '#shared/findings/index'
+import { computePreview } from '~~/workers/preview'
+import type { PreviewAnswer, PreviewReply } from '~~/workers/preview'
+
+export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
+
+/** Quiet time after the last keystroke before the engine runs (ms). */
+export const PREVIEW_DEBOUNCE_MS = 300
+
+/** Runs previews in a module Web Worker when there is one, else in-process (SSR never calls it). */
+function previewRunner(): (seq: number, raw: unknown) => Promise<PreviewReply> {
+  if (typeof Worker === 'undefined') {
+    return async (seq, raw) => ({ seq, ...(await computePreview(raw)) })
+  }
+  const worker = new Worker(new URL('../workers/preview.worker.ts', import.meta.url), { type: 'module' })
+  const waiting = new Map<number, (reply: PreviewReply) => void>()
+  worker.onmessage = (event: MessageEvent<PreviewReply>) => {
+    waiting.get(event.data.seq)?.(event.data)
+    waiting.delete(event.data.seq)
+  }
+  return (seq, raw) => new Promise((resolve) => {
+    waiting.set(seq, resolve)
+    worker.postMessage({ seq, raw: JSON.parse(JSON.stringify(raw)) })
+  })
+}
+
+/**
+ * The live analytic comparison: `request(inputs)` debounces, computes off the main thread and
+ * keeps only the answer to the newest request. While inputs do not validate, `result` is null and
+ * `issues` names the fields, so no stale numbers stay on screen.
+ */
+export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
+  const result = shallowRef<EvaluateOutputWithFindings | null>(null)
+  const issues = ref<{ path: string, message: string }[]>([])
+  const state = ref<PreviewState>('idle')
+  let run: ((seq: number, raw: unknown) => Promise<PreviewReply>) | null = null
+  let latest = 0
+  let timer: ReturnType<typeof setTimeout> | null = null
+
+  function accept(answer: PreviewAnswer) {
+    if (answer.ok) {
+      result.value = answer.result
+      issues.value = []
+      state.value = 'ready'
+    } else {
+      result.value = null
+      issues.value = answer.issues
+      state.value = 'invalid'
+    }
+  }
+
+  async function compute(seq: number, raw: unknown) {
+    run ??= previewRunner()
+    const reply = await run(seq, raw)
+    if (reply.seq === latest) accept(reply)
+  }
+
+  /** Asks for a preview of these inputs; an older request still running is superseded. */
+  function request(raw: unknown) {
+    const seq = ++latest
+    state.value = 'computing'
+    if (timer) clearTimeout(timer)
+    timer = setTimeout(() => {
+      timer = null
+      void compute(seq, raw)
+    }, debounceMs)
+  }
+
+  /** Shows field errors at once (inputs that cannot even be read), dropping any pending preview. */
+  function invalidate(list: { path: string, message: string }[]) {
+    latest++
+    if (timer) clearTimeout(timer)
+    accept({ ok: false, issues: list })
+  }
+
+  return { result, issues, state, request, invalidate }
+}

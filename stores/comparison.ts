@@ -1,0 +1,130 @@
+import { acceptHMRUpdate, defineStore } from 'pinia'
+import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
+import { rankEvaluation } from '#shared/findings/index'
+import type { EvaluateOutputWithFindings, Finding } from '#shared/findings/index'
+import { DEFAULT_WEIGHTS } from '#shared/findings/weights'
+import type { RankingWeights } from '#shared/findings/weights'
+import { canonicalJson } from '#shared/utils/revisionDiff'
+
+/** Which result the Candidates area shows. */
+export type ResultSource = 'live' | 'monte-carlo' | 'saved'
+
+type Inputs = Record<'spec' | 'process' | 'options', Record<string, unknown>>
+type FieldIssue = { path: string, message: string }
+/** An evaluation as the Candidates area reads it: findings, ranking and recommendation under the study's weights. */
+export type ShownResult = EvaluateOutputWithFindings
+
+const WEIGHTS_KEY = (studyId: number) => `rw:weights:${studyId}`
+
+function storedWeights(studyId: number): RankingWeights {
+  if (typeof localStorage === 'undefined') return { ...DEFAULT_WEIGHTS }
+  try {
+    const raw = JSON.parse(localStorage.getItem(WEIGHTS_KEY(studyId)) ?? 'null') as Partial<RankingWeights> | null
+    return { ...DEFAULT_WEIGHTS, ...raw }
+  } catch {
+    return { ...DEFAULT_WEIGHTS }
+  }
+}
+
+/** Re-ranks an output under other weights (no rules run); an output without findings is ranked on none. */
+function reranked(out: EvaluateOutput, weights: RankingWeights): ShownResult | null {
+  const o = out as Partial<EvaluateOutputWithFindings>
+  if (!o.spec || !o.process || !o.options) return null
+  const input = { spec: o.spec, process: o.process, options: o.options } as EvaluateInput
+  const findings: Finding[] = o.findings ?? []
+  const ranked = rankEvaluation(input, out, findings, weights)
+  return { ...(out as EvaluateOutputWithFindings), findings, rulePacks: o.rulePacks ?? [], ...ranked, recommendedId: ranked.recommendation.candidateId }
+}
+
+/**
+ * The comparison in the study workspace: the live analytic preview (a Web Worker, debounced, newest
+ * answer only), the Monte Carlo job on the server, the study's ranking weights and which result is
+ * shown. `evaluationId` is the finished Monte Carlo job computed for exactly the current inputs
+ * (null otherwise): pass it to the study store's `save(note, evaluationId)`.
+ */
+export const useComparisonStore = defineStore('comparison', () => {
+  const preview = useLivePreview()
+  const mc = useEvaluationJob()
+  const studyId = ref<number | null>(null)
+  const inputs = ref<Inputs | null>(null)
+  const inputsKey = ref('')
+  const saved = shallowRef<EvaluateOutput | null>(null)
+  const savedKey = ref<string | null>(null)
+  const source = ref<ResultSource>('live')
+  const weights = ref<RankingWeights>({ ...DEFAULT_WEIGHTS })
+
+  const monteCarloResult = computed(() => mc.result.value)
+  const monteCarloCurrent = computed(() => mc.result.value !== null && mc.inputsKey.value === inputsKey.value)
+  const evaluationId = computed(() => (monteCarloCurrent.value ? mc.id.value : null))
+  const savedCurrent = computed(() => saved.value !== null && savedKey.value === inputsKey.value)
+  const trials = computed(() => Number(inputs.value?.options.trials ?? 0))
+  const canRunMonteCarlo = computed(() => preview.state.value !== 'invalid' && trials.value > 0 && !mc.running.value)
+
+  const base = computed<EvaluateOutput | null>(() => {
+    if (source.value === 'monte-carlo') return mc.result.value
+    if (source.value === 'saved') return saved.value
+    return preview.result.value
+  })
+  const shown = computed(() => (base.value ? reranked(base.value, weights.value) : null))
+
+  /** Opens a study's comparison (clears another study's job and loads its weights). */
+  function open(id: number, savedResults: EvaluateOutput | null, savedInputs: Inputs | null) {
+    if (studyId.value !== id) {
+      mc.clear()
+      studyId.value = id
+      weights.value = storedWeights(id)
+      source.value = 'live'
+    }
+    setSaved(savedResults, savedInputs)
+  }
+
+  /** The head revision's results and the inputs they belong to. */
+  function setSaved(results: EvaluateOutput | null, savedInputs: Inputs | null) {
+    saved.value = results
+    savedKey.value = results && savedInputs ? canonicalJson(savedInputs) : null
+    if (!results && source.value === 'saved') source.value = 'live'
+  }
+
+  /** New inputs: field errors show at once, otherwise a debounced analytic preview runs. */
+  function setInputs(next: Inputs, fieldErrors: FieldIssue[] = []) {
+    const key = canonicalJson(next)
+    if (key === inputsKey.value && preview.state.value !== 'idle' && fieldErrors.length === 0) return
+    inputs.value = next
+    inputsKey.value = key
+    if (fieldErrors.length > 0) preview.invalidate(fieldErrors)
+    else preview.request(next)
+    if (source.value === 'monte-carlo' && !monteCarloCurrent.value) source.value = 'live'
+    if (source.value === 'saved' && !savedCurrent.value) source.value = 'live'
+  }
+
+  /** Starts Monte Carlo on the server for the current inputs, exactly as they will be saved. */
+  async function runMonteCarlo() {
+    if (!inputs.value || !canRunMonteCarlo.value) return
+    await mc.start(inputs.value, inputsKey.value)
+  }
+
+  function setWeights(next: RankingWeights) {
+    weights.value = { ...next }
+    if (studyId.value !== null && typeof localStorage !== 'undefined') localStorage.setItem(WEIGHTS_KEY(studyId.value), JSON.stringify(next))
+  }
+
+  function show(next: ResultSource) {
+    if (next === 'monte-carlo' && !mc.result.value) return
+    if (next === 'saved' && !saved.value) return
+    source.value = next
+  }
+
+  watch(mc.id, (id) => {
+    if (id !== null && monteCarloCurrent.value) source.value = 'monte-carlo'
+  })
+
+  return {
+    studyId, inputs, inputsKey, saved, source, weights, shown, trials, canRunMonteCarlo,
+    previewState: preview.state, previewIssues: preview.issues, previewResult: preview.result,
+    job: mc.job, jobRunning: mc.running, jobProgress: mc.progress, jobError: mc.error,
+    monteCarloResult, monteCarloCurrent, evaluationId, savedCurrent,
+    open, setSaved, setInputs, runMonteCarlo, cancelMonteCarlo: mc.cancel, setWeights, show
+  }
+})
+
+if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useComparisonStore, import.meta.hot))

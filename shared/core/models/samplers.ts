@@ -72,19 +72,35 @@ function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
  * plain ladder's scaled by x_out/(R_joint + R_ladder). This is `segmentedWeights` (solve/ladder.ts)
  * fused with the sampling into one division per leg; a test checks the two agree.
  */
+/**
+ * Leg conductances of the segmented trial in progress. One buffer for every segmented sampler of
+ * the thread (a trial runs them one after another and each fills it before reading it): the
+ * sweep M = 1 … 15 then keeps 2^15 values in cache instead of 2^16 spread over 15 arrays, so
+ * the shared normals stay cached too. Single-threaded by construction (a worker has its own).
+ */
+let sharedLegs = new Float64Array(0)
+
+function legBuffer(count: number): Float64Array {
+  if (sharedLegs.length < count) {
+    sharedLegs = new Float64Array(count)
+  }
+  return sharedLegs.subarray(0, count)
+}
+
 function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler {
   const s2 = p.twoR === 'two-units' ? p.sigmaUnit * Math.SQRT1_2 : p.sigmaUnit
-  const g = new Float64Array((1 << m) - 1)
+  const legCount = (1 << m) - 1
   const legs = new Float64Array(l)
   const series = new Float64Array(Math.max(0, l - 1))
   const binary = new Float64Array(l)
   const scratch = createSegmentedScratch(m, 256)
-  const at = g.length
+  const at = legCount
   const sw = p.switchRatio
   return {
     key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
     normals: at + 2 * l + 1,
     run(z, out, env) {
+      const g = legBuffer(at)
       let sumG = 0
       for (let j = 0; j < at; j++) {
         const gj = 1 / (2 + 2 * s2 * z[j]! + sw)

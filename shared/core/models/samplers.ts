@@ -67,12 +67,6 @@ function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
 }
 
 /**
- * Unary legs all meet at the output node, so their weights are u_j = x_out·g_j with
- * g_j = 1/(R_j + R_on) and x_out = 1/(Σg + 1/(R_joint + R_ladder)); the binary weights are the
- * plain ladder's scaled by x_out/(R_joint + R_ladder). This is `segmentedWeights` (solve/ladder.ts)
- * fused with the sampling into one division per leg; a test checks the two agree.
- */
-/**
  * Leg conductances of the segmented trial in progress. One buffer for every segmented sampler of
  * the thread (a trial runs them one after another and each fills it before reading it): the
  * sweep M = 1 … 15 then keeps 2^15 values in cache instead of 2^16 spread over 15 arrays, so
@@ -80,13 +74,23 @@ function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
  */
 let sharedLegs = new Float64Array(0)
 
-function legBuffer(count: number): Float64Array {
+/** A view of `count` entries of the shared buffer; `view` is returned again while still valid. */
+function legBuffer(count: number, view?: Float64Array): Float64Array {
+  if (view && view.buffer === sharedLegs.buffer) {
+    return view
+  }
   if (sharedLegs.length < count) {
     sharedLegs = new Float64Array(count)
   }
   return sharedLegs.subarray(0, count)
 }
 
+/**
+ * Unary legs all meet at the output node, so their weights are u_j = x_out·g_j with
+ * g_j = 1/(R_j + R_on) and x_out = 1/(Σg + 1/(R_joint + R_ladder)); the binary weights are the
+ * plain ladder's scaled by x_out/(R_joint + R_ladder). This is `segmentedWeights` (solve/ladder.ts)
+ * fused with the sampling into one division per leg; a test checks the two agree.
+ */
 function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler {
   const s2 = p.twoR === 'two-units' ? p.sigmaUnit * Math.SQRT1_2 : p.sigmaUnit
   const legCount = (1 << m) - 1
@@ -96,11 +100,12 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
   const scratch = createSegmentedScratch(m, 256)
   const at = legCount
   const sw = p.switchRatio
+  let g = legBuffer(legCount)
   return {
     key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
     normals: at + 2 * l + 1,
     run(z, out, env) {
-      const g = legBuffer(at)
+      g = legBuffer(at, g)
       let sumG = 0
       for (let j = 0; j < at; j++) {
         const gj = 1 / (2 + 2 * s2 * z[j]! + sw)

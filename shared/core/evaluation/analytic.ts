@@ -2,10 +2,14 @@
  * The analytic (non-Monte-Carlo) part of one candidate: counts, sizing and area, analytic σ and
  * yields, the exact nominal solve of every code (systematic INL/DNL, I_REF, R_out), reference,
  * dynamics, glitch of every transition, noise and power. Pure and synchronous; the result is
- * plain data so it can come back from a worker.
+ * plain data so it can come back from a worker. Given a `trace` (explain mode), every formula and
+ * procedure behind a metric records its inputs and result there.
  */
 import { buildCircuit } from '../circuits/index'
 import type { EvaluateInput } from '../contract/evaluate'
+import { traceGlitch } from '../explain/glitch-trace'
+import { OUTPUT_FORMULAS as F } from '../explain/registry'
+import type { Trace } from '../explain/types'
 import { elementCounts } from '../models/counts'
 import type { ElementCounts } from '../models/counts'
 import { dynamics, effectiveRoutMaxOhm } from '../models/dynamics'
@@ -36,24 +40,42 @@ export interface AnalyticCandidate {
   series: { irefA: DecimatedSeries, rinOhm: DecimatedSeries, routOhm: DecimatedSeries }
 }
 
-function areaOf(c: CandidateContext, counts: ElementCounts, input: EvaluateInput): AnalyticCandidate['area'] {
+function areaOf(c: CandidateContext, counts: ElementCounts, input: EvaluateInput, trace?: Trace): AnalyticCandidate['area'] {
   const p = input.process
-  const resistorAreaMm2 = (counts.unitResistorCount * c.sizing.unitAreaUm2 * p.layoutOverhead) / 1e6
-  const switchAreaMm2 = (counts.switchCount * p.switchAreaUm2) / 1e6
-  const decoderAreaMm2 = (counts.decoderGateCount * p.gateAreaUm2) / 1e6
-  const totalAreaMm2 = resistorAreaMm2 + switchAreaMm2 + decoderAreaMm2
-  return { resistorAreaMm2, switchAreaMm2, decoderAreaMm2, totalAreaMm2, areaBudgetShare: totalAreaMm2 / input.spec.areaBudgetMm2 }
+  const resistorAreaMm2 = F.resistorArea.use({ n_u: counts.unitResistorCount, A_unit: c.sizing.unitAreaUm2, k_ovh: p.layoutOverhead }, trace, 'resistorAreaMm2', { n_u: 'unitResistorCount', A_unit: 'unitAreaUm2' })
+  const switchAreaMm2 = F.switchArea.use({ n_sw: counts.switchCount, A_sw: p.switchAreaUm2 }, trace, 'switchAreaMm2', { n_sw: 'switchCount' })
+  const decoderAreaMm2 = F.decoderArea.use({ n_g: counts.decoderGateCount, A_g: p.gateAreaUm2 }, trace, 'decoderAreaMm2', { n_g: 'decoderGateCount' })
+  const totalAreaMm2 = F.totalArea.use({ A_res: resistorAreaMm2, A_sw: switchAreaMm2, A_dec: decoderAreaMm2 }, trace, 'totalAreaMm2', { A_res: 'resistorAreaMm2', A_sw: 'switchAreaMm2', A_dec: 'decoderAreaMm2' })
+  const areaBudgetShare = F.areaShare.use({ A_total: totalAreaMm2, A_budget: input.spec.areaBudgetMm2 }, trace, 'areaBudgetShare', { A_total: 'totalAreaMm2' })
+  return { resistorAreaMm2, switchAreaMm2, decoderAreaMm2, totalAreaMm2, areaBudgetShare }
 }
 
-function analyticStats(c: CandidateContext, input: EvaluateInput): AnalyticCandidate['analytic'] {
+function analyticStats(c: CandidateContext, input: EvaluateInput, trace?: Trace): AnalyticCandidate['analytic'] {
   const { shape, sizing } = c
   const twoR = input.process.twoRConstruction
   const s = input.spec
   return {
-    ...analyticSigmas(shape, twoR, sizing.sigmaUnit),
-    inlYield: analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb),
-    dnlYield: analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb),
-    monotonicYield: analyticMonotonicYield(shape, twoR, sizing.sigmaUnit)
+    ...analyticSigmas(shape, twoR, sizing.sigmaUnit, trace),
+    inlYield: analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb, trace),
+    dnlYield: analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb, trace),
+    monotonicYield: analyticMonotonicYield(shape, twoR, sizing.sigmaUnit, trace)
+  }
+}
+
+/** Procedure entries of the nodal-solve quantities (explain mode only). */
+function traceSolved(a: AnalyticCandidate, input: EvaluateInput, trace: Trace): void {
+  const def = input.options.inlDefinition
+  const solved = (key: string, procedure: string, inputs: Record<string, number | string | null>, result: number | null) => {
+    trace[key] = { kind: 'procedure', procedure: result === null ? 'not-applicable' : procedure, inputs, result }
+  }
+  solved('systematicInlLsb', 'nodal-linearity', { inlDefinition: def }, a.systematic.inlLsb)
+  solved('systematicDnlLsb', 'nodal-linearity', { inlDefinition: def }, a.systematic.dnlLsb)
+  solved('loadedInlLsb', 'nodal-linearity', { inlDefinition: def, loadResistanceOhm: input.spec.loadResistanceOhm }, a.systematic.loadedInlLsb)
+  solved('routMinOhm', 'nodal-solve-extreme', { extreme: 'min' }, a.output.routMinOhm)
+  solved('routMaxOhm', 'nodal-solve-extreme', { extreme: 'max' }, a.output.routMaxOhm)
+  solved('routEffMaxOhm', 'per-code-max', { loadResistanceOhm: input.spec.loadResistanceOhm }, a.output.routEffMaxOhm)
+  if (a.noise.noiseKtcVrms === null) {
+    solved('noiseKtcVrms', 'not-applicable', { loadCapacitanceF: input.spec.loadCapacitanceF }, null)
   }
 }
 
@@ -81,10 +103,10 @@ function finiteRange(a: Float64Array): { min: number, max: number } {
   return { min, max }
 }
 
-/** The analytic part of one candidate. */
-export function analyseCandidate(c: CandidateContext, input: EvaluateInput): AnalyticCandidate {
+/** The analytic part of one candidate; a `trace` collects how each metric was computed. */
+export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trace?: Trace): AnalyticCandidate {
   const { spec, process, options } = input
-  const counts = elementCounts(c.shape, process.twoRConstruction)
+  const counts = elementCounts(c.shape, process.twoRConstruction, trace)
   const circuit = buildCircuit(circuitShapeOf(c.shape), {
     unitOhm: c.sizing.unitOhm, vrefV: spec.vrefV, switchOhm: process.switchOhm, twoR: process.twoRConstruction,
     ...twoStageUnits(c.shape, c.sizing.unitOhm)
@@ -97,33 +119,39 @@ export function analyseCandidate(c: CandidateContext, input: EvaluateInput): Ana
   const routRange = finiteRange(sol.routOhm)
   const vLsb = spec.vrefV / 2 ** spec.bits
   const budget = spec.refInlBudgetLsb ?? 0.1 * spec.inlTargetLsb
-  return {
+  const glitch = summariseGlitch(c.shape, vLsb, rout, process, options.envelopePoints)
+  const result: AnalyticCandidate = {
     id: c.shape.id,
     counts,
-    area: areaOf(c, counts, input),
-    analytic: analyticStats(c, input),
+    area: areaOf(c, counts, input, trace),
+    analytic: analyticStats(c, input, trace),
     systematic: {
       inlLsb: inlAbsLsb(nominal),
       dnlLsb: dnlAbsLsb(nominal),
       loadedInlLsb: spec.loadResistanceOhm !== null && voltageOut ? loadedInl(sol.value, rout, spec.loadResistanceOhm, input) : null
     },
-    reference: referenceSummary(sol.irefA, spec.vrefV, spec.refSourceOhm, budget, options.inlDefinition),
+    reference: referenceSummary(sol.irefA, spec.vrefV, spec.refSourceOhm, budget, options.inlDefinition, trace),
     output: {
       routMinOhm: routRange.min,
       routMaxOhm: routRange.max,
       routEffMaxOhm,
-      ...dynamics(routEffMaxOhm, spec.loadCapacitanceF, spec.bits, process.latchDelayS)
+      ...dynamics(routEffMaxOhm, spec.loadCapacitanceF, spec.bits, process.latchDelayS, trace)
     },
     noise: {
-      noiseVrms: rcNoiseVrms(routEffMaxOhm, spec.loadCapacitanceF, spec.updateRateHz / 2, spec.temperatureK),
-      noiseKtcVrms: spec.loadCapacitanceF > 0 ? ktcNoiseVrms(spec.loadCapacitanceF, spec.temperatureK) : null,
-      quantNoiseVrms: quantisationNoiseVrms(spec.vrefV, spec.bits)
+      noiseVrms: rcNoiseVrms(routEffMaxOhm, spec.loadCapacitanceF, spec.updateRateHz / 2, spec.temperatureK, trace),
+      noiseKtcVrms: spec.loadCapacitanceF > 0 ? ktcNoiseVrms(spec.loadCapacitanceF, spec.temperatureK, trace) : null,
+      quantNoiseVrms: quantisationNoiseVrms(spec.vrefV, spec.bits, trace)
     },
-    glitch: summariseGlitch(c.shape, vLsb, rout, process, options.envelopePoints),
+    glitch,
     series: {
       irefA: decimateSeries(sol.irefA, options.envelopePoints),
       rinOhm: decimateSeries(sol.irefA.map(i => spec.vrefV / i), options.envelopePoints),
       routOhm: decimateSeries(sol.routOhm, options.envelopePoints)
     }
   }
+  if (trace) {
+    traceSolved(result, input, trace)
+    traceGlitch(c.shape, vLsb, rout, process, glitch, trace)
+  }
+  return result
 }

@@ -3,6 +3,7 @@
  * the detail sections and the list of spec items it fails.
  */
 import type { EvaluateInput } from '../contract/evaluate'
+import { OUTPUT_FORMULAS } from '../explain/registry'
 import type { McTally } from '../stats/accumulator'
 import { wilsonInterval } from '../stats/interval'
 import type { AnalyticCandidate } from './analytic'
@@ -19,7 +20,7 @@ function yields(a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
     return { inlYield: t.inlPass / t.trials, dnlYield: t.dnlPass / t.trials, monotonicYield: t.monoPass / t.trials, yield: all.yield, yieldLow: all.low, yieldHigh: all.high, yieldSource: 'monte-carlo' }
   }
   const { inlYield, dnlYield, monotonicYield } = a.analytic
-  const all = inlYield * dnlYield * (input.spec.monotonicRequired ? monotonicYield : 1)
+  const all = OUTPUT_FORMULAS.yieldProduct.compute({ Y_INL: inlYield, Y_DNL: dnlYield, Y_mono: input.spec.monotonicRequired ? monotonicYield : 1 })
   return { inlYield, dnlYield, monotonicYield, yield: all, yieldLow: null, yieldHigh: null, yieldSource: 'analytic' }
 }
 

@@ -3,6 +3,9 @@
  * decoded output line (1-of-n and thermometer decoders) plus one inverter per bit for a
  * switch tree [CP model for ranking; real decoders share terms].
  */
+import type { Formula } from '../explain/define'
+import { COUNT_FORMULAS } from '../explain/registry'
+import type { Trace } from '../explain/types'
 import type { CandidateShape, TwoRConstruction } from './shapes'
 import { lowBits } from './shapes'
 
@@ -16,51 +19,48 @@ export interface ElementCounts {
   bufferCount: number
 }
 
-/** Element, unit, switch, decoder and buffer counts of a candidate. */
-export function elementCounts(s: CandidateShape, twoR: TwoRConstruction = 'two-units'): ElementCounts {
-  const n = s.bits
-  const per2R = twoR === 'two-units' ? 2 : 1
+type CountKey = Exclude<keyof ElementCounts, 'bufferCount'>
+
+function fixed(trace: Trace | undefined, key: CountKey | 'bufferCount', value: number): number {
+  if (trace) {
+    trace[key] = { kind: 'procedure', procedure: 'topology-constant', inputs: {}, result: value }
+  }
+  return value
+}
+
+function counted(rows: [CountKey, Formula][], inputs: Record<string, number>, trace: Trace | undefined, rest: Partial<ElementCounts>): ElementCounts {
+  const out: Record<string, number> = { ...rest }
+  for (const [key, f] of rows) {
+    out[key] = f.use(inputs, trace, key)
+  }
+  return out as unknown as ElementCounts
+}
+
+/** Element, unit, switch, decoder and buffer counts of a candidate, each through its registry formula. */
+export function elementCounts(s: CandidateShape, twoR: TwoRConstruction = 'two-units', trace?: Trace): ElementCounts {
+  const F = COUNT_FORMULAS
+  const N = s.bits
+  const u = twoR === 'two-units' ? 2 : 1
   switch (s.topology) {
     case 'string': {
       const tree = s.decode === 'tree'
-      return {
-        resistorCount: 2 ** n,
-        unitResistorCount: 2 ** n,
-        switchCount: tree ? 2 ** (n + 1) - 2 : 2 ** n,
-        switchesInPath: tree ? n : 1,
-        decoderGateCount: tree ? n : 2 ** n,
-        bufferCount: 0
-      }
+      return counted([
+        ['resistorCount', F.stringResistors], ['unitResistorCount', F.stringUnits],
+        ['switchCount', tree ? F.stringTreeSwitches : F.stringDirectSwitches],
+        ['decoderGateCount', tree ? F.stringTreeDecoder : F.stringDirectDecoder],
+        ...(tree ? [['switchesInPath', F.stringTreePath] as [CountKey, Formula]] : [])
+      ], { N }, trace, { ...(tree ? {} : { switchesInPath: fixed(trace, 'switchesInPath', 1) }), bufferCount: fixed(trace, 'bufferCount', 0) })
     }
     case 'r2r-voltage':
     case 'r2r-current':
-      // N legs (2R) + N − 1 series (R) + termination (2R)
-      return { resistorCount: 2 * n, unitResistorCount: (n + 1) * per2R + (n - 1), switchCount: n, switchesInPath: 1, decoderGateCount: 0, bufferCount: 0 }
-    case 'segmented': {
-      const m = s.unaryBits ?? 1
-      const l = lowBits(s)
-      const legs = 2 ** m - 1
-      return {
-        resistorCount: 2 ** m + 2 * l,
-        // unary legs and ladder legs and termination are 2R; ladder series and the joint are R
-        unitResistorCount: (legs + l + 1) * per2R + l,
-        switchCount: legs + l,
-        switchesInPath: 1,
-        decoderGateCount: legs,
-        bufferCount: 0
-      }
-    }
-    case 'two-stage-string': {
-      const m = s.coarseBits ?? 1
-      const l = lowBits(s)
-      return {
-        resistorCount: 2 ** m + 2 ** l,
-        unitResistorCount: 2 ** m + 2 ** l,
-        switchCount: 2 * 2 ** m + 2 ** l,
-        switchesInPath: 1,
-        decoderGateCount: 2 ** m + 2 ** l,
-        bufferCount: s.buffered ? 2 : 0
-      }
-    }
+      return counted([['resistorCount', F.r2rResistors], ['unitResistorCount', F.r2rUnits], ['switchCount', F.r2rSwitches]], { N, u }, trace, {
+        switchesInPath: fixed(trace, 'switchesInPath', 1), decoderGateCount: fixed(trace, 'decoderGateCount', 0), bufferCount: fixed(trace, 'bufferCount', 0)
+      })
+    case 'segmented':
+      return counted([['resistorCount', F.segResistors], ['unitResistorCount', F.segUnits], ['switchCount', F.segSwitches], ['decoderGateCount', F.segDecoder]],
+        { M: s.unaryBits ?? 1, L: lowBits(s), u }, trace, { switchesInPath: fixed(trace, 'switchesInPath', 1), bufferCount: fixed(trace, 'bufferCount', 0) })
+    case 'two-stage-string':
+      return counted([['resistorCount', F.twoStageResistors], ['unitResistorCount', F.twoStageUnits], ['switchCount', F.twoStageSwitches], ['decoderGateCount', F.twoStageDecoder]],
+        { M: s.coarseBits ?? 1, L: lowBits(s) }, trace, { switchesInPath: fixed(trace, 'switchesInPath', 1), bufferCount: fixed(trace, 'bufferCount', s.buffered ? 2 : 0) })
   }
 }

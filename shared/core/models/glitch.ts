@@ -8,6 +8,8 @@
  * Binary sections toggle popcount(k ⊕ (k+1)) switches, a thermometer section one leg, a direct
  * string two tap switches (skew-free); a tree string behaves like a binary skew term on the tap index.
  */
+import { GLITCH_FORMULAS as F } from '../explain/registry'
+import type { Trace } from '../explain/types'
 import type { CandidateShape } from './shapes'
 import { lowBits } from './shapes'
 
@@ -73,13 +75,13 @@ export function transitionActivity(s: CandidateShape, k: number, p: GlitchProces
 }
 
 /** Skew term (V·s) of one transition. */
-export function skewImpulseVs(a: Activity, vLsbV: number, skewS: number): number {
-  return a.wOn > 0 && a.wOff > 0 ? 0.5 * (a.wOn + a.wOff) * vLsbV * Math.abs(skewS) : 0
+export function skewImpulseVs(a: Activity, vLsbV: number, skewS: number, trace?: Trace, key = 'glitchSkewVs'): number {
+  return F.skew.use({ W_on: a.wOn, W_off: a.wOff, V_LSB: vLsbV, dt: skewS }, trace, key)
 }
 
 /** Charge term (V·s) of one transition into an output of Thevenin resistance `routOhm`. */
-export function chargeImpulseVs(a: Activity, chargeC: number, routOhm: number): number {
-  return Number.isFinite(routOhm) ? a.alpha * a.toggled * chargeC * routOhm : 0
+export function chargeImpulseVs(a: Activity, chargeC: number, routOhm: number, trace?: Trace, key = 'glitchChargeVs'): number {
+  return Number.isFinite(routOhm) ? F.charge.use({ alpha: a.alpha, n_tog: a.toggled, q_sw: chargeC, R_out: routOhm }, trace, key) : 0
 }
 
 /** Per-transition glitch of all 2^N − 1 transitions (index k = transition k → k + 1). */
@@ -93,7 +95,9 @@ export interface GlitchTable {
 /**
  * Glitch impulse of every one-code transition. The activity of k → k + 1 depends only on the
  * number j of trailing ones of k (capped at the binary section's width), so it is tabulated once
- * per j; j = 31 − clz32(k ⊕ (k + 1)).
+ * per j; j = 31 − clz32(k ⊕ (k + 1)). The charge term is linear in R_out, so the registry
+ * formula is evaluated once per j at R_out = 1 Ω (x·1 is exact) and scaled by each code's R_out:
+ * the same product, in the same order, as evaluating it per transition.
  * @param routOhm per-code output resistance (ohms) used for the charge term
  */
 export function glitchTable(s: CandidateShape, vLsbV: number, routOhm: ArrayLike<number>, p: GlitchProcess): GlitchTable {
@@ -102,18 +106,18 @@ export function glitchTable(s: CandidateShape, vLsbV: number, routOhm: ArrayLike
   const cap = s.topology === 'segmented' || s.topology === 'two-stage-string' ? lowBits(s) : s.bits
   const skewByJ = new Float64Array(cap + 1)
   const toggledByJ = new Float64Array(cap + 1)
-  const alphaByJ = new Float64Array(cap + 1)
+  const chargePerOhmByJ = new Float64Array(cap + 1)
   for (let j = 0; j <= cap; j++) {
     // the lowest code with j trailing ones (capped) has the activity of every such transition
     const a = transitionActivity(s, 2 ** j - 1, p)
     skewByJ[j] = skewImpulseVs(a, vLsbV, p.switchSkewS)
     toggledByJ[j] = a.toggled
-    alphaByJ[j] = a.alpha
+    chargePerOhmByJ[j] = chargeImpulseVs(a, p.switchChargeC, 1)
   }
   for (let k = 0; k < count; k++) {
     const j = Math.min(cap, 31 - Math.clz32(k ^ (k + 1)))
     const r = routOhm[k + 1]!
-    const charge = Number.isFinite(r) ? alphaByJ[j]! * toggledByJ[j]! * p.switchChargeC * r : 0
+    const charge = Number.isFinite(r) ? chargePerOhmByJ[j]! * r : 0
     t.skewVs[k] = skewByJ[j]!
     t.chargeVs[k] = charge
     t.totalVs[k] = skewByJ[j]! + charge

@@ -6,6 +6,8 @@
  * on V_int), so the output is the ideal level scaled by that factor, exactly; a code-independent
  * load only changes the gain.
  */
+import { OUTPUT_FORMULAS as F } from '../explain/registry'
+import type { Trace } from '../explain/types'
 import type { InlDefinition } from '../stats/linearity'
 import { inlAbsLsb, linearityFromLevels, newLinearityResult } from '../stats/linearity'
 
@@ -61,12 +63,8 @@ export function allowedSourceOhm(irefA: Float64Array, vrefV: number, budgetLsb: 
   return r1
 }
 
-/**
- * Reference summary from the exact per-code I_REF (A).
- * @param refSourceOhm actual source resistance (0 = buffered reference)
- * @param budgetLsb INL share allowed for the reference source
- */
-export function referenceSummary(irefA: Float64Array, vrefV: number, refSourceOhm: number, budgetLsb: number, def: InlDefinition): ReferenceSummary {
+/** Extremes and sum of the per-code reference current (A). */
+function currentRange(irefA: Float64Array): { min: number, max: number, sum: number } {
   let min = Infinity
   let max = 0
   let sum = 0
@@ -76,23 +74,56 @@ export function referenceSummary(irefA: Float64Array, vrefV: number, refSourceOh
     max = Math.max(max, i)
     sum += i
   }
+  return { min, max, sum }
+}
+
+function traceProcedures(trace: Trace, r: ReferenceSummary, inputs: { vrefV: number, refSourceOhm: number, budgetLsb: number, def: InlDefinition }): void {
+  const { vrefV, refSourceOhm, budgetLsb, def } = inputs
+  trace.irefMinA = { kind: 'procedure', procedure: 'nodal-solve-extreme', inputs: { vrefV, extreme: 'min' }, result: r.irefMinA }
+  trace.irefMaxA = { kind: 'procedure', procedure: 'nodal-solve-extreme', inputs: { vrefV, extreme: 'max' }, result: r.irefMaxA }
+  trace.refLoadCodeDependent = { kind: 'procedure', procedure: 'choice', inputs: { irefMinA: r.irefMinA, irefMaxA: r.irefMaxA, relativeSpread: CODE_DEPENDENT_SPREAD }, result: r.refLoadCodeDependent }
+  trace.refSourceMaxOhm = r.refSourceMaxOhm === null
+    ? { kind: 'procedure', procedure: 'not-applicable', inputs: { refLoadCodeDependent: r.refLoadCodeDependent }, result: null }
+    : { kind: 'procedure', procedure: 'source-inl', inputs: { vrefV, budgetLsb, inlDefinition: def }, result: r.refSourceMaxOhm }
+  trace.refInlAtSourceLsb = { kind: 'procedure', procedure: 'source-inl', inputs: { vrefV, refSourceOhm, inlDefinition: def }, result: r.refInlAtSourceLsb }
+  trace.bufferNeeded = { kind: 'procedure', procedure: 'choice', inputs: { refLoadCodeDependent: r.refLoadCodeDependent, refSourceOhm, refSourceMaxOhm: r.refSourceMaxOhm }, result: r.bufferNeeded }
+  if (r.rinMinOhm === null) {
+    trace.rinMinOhm = { kind: 'procedure', procedure: 'not-applicable', inputs: { irefMaxA: r.irefMaxA }, result: null }
+  }
+  if (r.rinMaxOhm === null) {
+    trace.rinMaxOhm = { kind: 'procedure', procedure: 'not-applicable', inputs: { irefMinA: r.irefMinA }, result: null }
+  }
+}
+
+/**
+ * Reference summary from the exact per-code I_REF (A).
+ * @param refSourceOhm actual source resistance (0 = buffered reference)
+ * @param budgetLsb INL share allowed for the reference source
+ */
+export function referenceSummary(irefA: Float64Array, vrefV: number, refSourceOhm: number, budgetLsb: number, def: InlDefinition, trace?: Trace): ReferenceSummary {
+  const { min, max, sum } = currentRange(irefA)
   const codeDependent = max - min > CODE_DEPENDENT_SPREAD * max
   const refSourceMaxOhm = codeDependent && max > 0 ? allowedSourceOhm(irefA, vrefV, budgetLsb, def) : null
   const refInlAtSourceLsb = codeDependent && refSourceOhm > 0
     ? sourceInducedInlLsb(irefA, vrefV, refSourceOhm, def, new Float64Array(irefA.length))
     : 0
-  return {
+  const from = { I_max: 'irefMaxA' }
+  const r: ReferenceSummary = {
     irefMinA: min,
     irefMaxA: max,
     irefMeanA: sum / irefA.length,
-    rinMinOhm: max > 0 ? vrefV / max : null,
-    rinMaxOhm: min > 0 ? vrefV / min : null,
+    rinMinOhm: max > 0 ? F.rinMin.use({ V_REF: vrefV, I_max: max }, trace, 'rinMinOhm', from) : null,
+    rinMaxOhm: min > 0 ? F.rinMax.use({ V_REF: vrefV, I_min: min }, trace, 'rinMaxOhm', { I_min: 'irefMinA' }) : null,
     refLoadCodeDependent: codeDependent,
     refSourceMaxOhm,
     refInlAtSourceLsb,
     // a code-dependent load needs a low-impedance (buffered) reference unless the given source is small enough
     bufferNeeded: codeDependent && (refSourceOhm === 0 || refSourceMaxOhm === null || refSourceOhm > refSourceMaxOhm),
-    refPowerMaxW: vrefV * max,
-    refPowerMeanW: (vrefV * sum) / irefA.length
+    refPowerMaxW: F.powerMax.use({ V_REF: vrefV, I_max: max }, trace, 'refPowerMaxW', from),
+    refPowerMeanW: F.powerMean.use({ V_REF: vrefV, I_sum: sum, n_codes: irefA.length }, trace, 'refPowerMeanW')
   }
+  if (trace) {
+    traceProcedures(trace, r, { vrefV, refSourceOhm, budgetLsb, def })
+  }
+  return r
 }

@@ -55,7 +55,7 @@ describe('analytic outputs before and after the explain refactor', () => {
         glitch: scalars(c.glitch),
         reference: scalars(c.reference),
         output: scalars(c.output),
-        noise: scalars(c.output.noise)
+        noise: scalars(c.output.noise as object)
       }))
       expect(recorded).toMatchSnapshot()
     })

@@ -38,11 +38,12 @@ async function runJob(id: number, teamId: number, input: EvaluateInput): Promise
       onProgress: async ({ done }) => {
         const row = await db('evaluations').where({ id }).first('status')
         if (row?.status === 'cancelled') controller.abort()
-        else await db('evaluations').where({ id }).update({ tasks_done: done, heartbeat_at: new Date() })
+        // Progress writes can land out of order: never move the counter backwards.
+        else await db('evaluations').where({ id }).where('tasks_done', '<', done).update({ tasks_done: done, heartbeat_at: new Date() })
       }
     })
     await db('evaluations').where({ id }).whereNot({ status: 'cancelled' })
-      .update({ status: 'done', result: JSON.stringify(result), finished_at: new Date(), heartbeat_at: new Date() })
+      .update({ status: 'done', tasks_done: db.ref('tasks_total'), result: JSON.stringify(result), finished_at: new Date(), heartbeat_at: new Date() })
   } catch (error) {
     const cancelled = controller.signal.aborted
     await db('evaluations').where({ id }).whereNot({ status: 'cancelled' }).update({

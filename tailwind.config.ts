@@ -14,7 +14,9 @@ export default {
         slate: { DEFAULT: '#5B6B70' },
         pass: '#2F7D4F',
         risk: { DEFAULT: '#B7862B', ink: '#7F5C14' },
-        fail: '#B23A3A'
+        fail: '#B23A3A',
+        // Candidate hues for charts after ink, copper and slate (utils/chartPalette.ts reads these)
+        chart: { moss: '#5E7A3A', plum: '#7A4A6E', teal: '#2F7F86', sand: '#A08A5A', brick: '#8A4B3C', steel: '#4F6D8F', olive: '#8A8A3A' }
       },
       fontFamily: {
         sans: ['Lexend', 'ui-sans-serif', 'system-ui', 'sans-serif']

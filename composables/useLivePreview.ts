@@ -1,5 +1,4 @@
 import type { EvaluateOutputWithFindings } from '#shared/findings/index'
-import { computePreview } from '~~/workers/preview'
 import type { PreviewAnswer, PreviewReply } from '~~/workers/preview'
 
 export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
@@ -10,7 +9,8 @@ export const PREVIEW_DEBOUNCE_MS = 300
 /** Runs previews in a module Web Worker when there is one, else in-process (SSR never calls it). */
 function previewRunner(): (seq: number, raw: unknown) => Promise<PreviewReply> {
   if (typeof Worker === 'undefined') {
-    return async (seq, raw) => ({ seq, ...(await computePreview(raw)) })
+    // Loaded on demand, so the engine stays out of the page bundle when a Worker carries it.
+    return async (seq, raw) => ({ seq, ...(await (await import('~~/workers/preview')).computePreview(raw)) })
   }
   const worker = new Worker(new URL('../workers/preview.worker.ts', import.meta.url), { type: 'module' })
   const waiting = new Map<number, (reply: PreviewReply) => void>()

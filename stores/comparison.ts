@@ -12,7 +12,7 @@ export type ResultSource = 'live' | 'monte-carlo' | 'saved'
 type Inputs = Record<'spec' | 'process' | 'options', Record<string, unknown>>
 type FieldIssue = { path: string, message: string }
 /** An evaluation as the Candidates area reads it: findings, ranking and recommendation under the study's weights. */
-export type ShownResult = EvaluateOutputWithFindings
+export type ShownResult = EvaluateOutputWithFindings & { recommendedId: string | null, spec: Record<string, unknown>, options: Record<string, unknown> }
 
 const WEIGHTS_KEY = (studyId: number) => `rw:weights:${studyId}`
 
@@ -33,7 +33,7 @@ function reranked(out: EvaluateOutput, weights: RankingWeights): ShownResult | n
   const input = { spec: o.spec, process: o.process, options: o.options } as EvaluateInput
   const findings: Finding[] = o.findings ?? []
   const ranked = rankEvaluation(input, out, findings, weights)
-  return { ...(out as EvaluateOutputWithFindings), findings, rulePacks: o.rulePacks ?? [], ...ranked, recommendedId: ranked.recommendation.candidateId }
+  return { ...(out as ShownResult), findings, rulePacks: o.rulePacks ?? [], ...ranked, recommendedId: ranked.recommendation.candidateId }
 }
 
 /**

@@ -1,0 +1,110 @@
+import { mkdirSync } from 'node:fs'
+import { join } from 'node:path'
+import AxeBuilder from '@axe-core/playwright'
+import type { Browser, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { launchBrowser, newContext } from '../support/browser'
+import { DEMO, DEMO_PASSWORD } from '../support/http'
+
+const SHOTS = join(process.cwd(), 'tests/e2e/screenshots')
+const STUDY = 'Bridge-sensor trim DAC, 12 bit'
+let browser: Browser
+let close: () => Promise<void>
+let studyUrl = ''
+
+beforeAll(async () => {
+  mkdirSync(SHOTS, { recursive: true })
+  ;({ browser, close } = await launchBrowser())
+})
+afterAll(async () => {
+  await close()
+})
+
+async function signedIn(email: string, path: string, width = 1280): Promise<Page> {
+  const context = await newContext(browser, inject('baseUrl'), width)
+  const page = await context.newPage()
+  await page.goto(`/sign-in?redirect=${encodeURIComponent(path)}`)
+  await page.getByLabel('Email').fill(email)
+  await page.getByLabel('Password').fill(DEMO_PASSWORD)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.waitForURL(url => url.pathname === path)
+  await page.getByTestId('sign-out').waitFor()
+  return page
+}
+
+async function expectAccessible(page: Page) {
+  const { violations } = await new AxeBuilder({ page }).analyze()
+  const bad = violations.filter(v => v.impact === 'serious' || v.impact === 'critical')
+  expect(bad.map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)).toEqual([])
+}
+
+const field = (page: Page, label: string) => page.getByLabel(label, { exact: true })
+const line = (page: Page, candidate: string, id: string) => page.locator(`[data-testid="candidates-table"] tr[data-candidate="${candidate}"] [data-line="${id}"]`)
+
+async function setField(page: Page, label: string, value: string) {
+  await field(page, label).fill(value)
+  await field(page, label).blur()
+}
+
+describe('candidates: live comparison → Monte Carlo → revisions', () => {
+  it('updates the live table as a target typed with units changes', async () => {
+    const page = await signedIn(DEMO.architect, '/studies')
+    await page.getByRole('link', { name: STUDY }).click()
+    await page.waitForURL(/\/studies\/\d+$/)
+    studyUrl = new URL(page.url()).pathname
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    // Demo preset 1 and the 12-bit demo spec: the buffered two-stage string exceeds the 50 pV·s glitch limit (engine verdict).
+    expect(await line(page, 'two-stage-buffered', 'glitch').getAttribute('data-state')).toBe('fail')
+    await setField(page, 'Glitch limit', '20 nV·s')
+    await expect.poll(() => line(page, 'two-stage-buffered', 'glitch').getAttribute('data-state'), { timeout: 20_000 }).not.toBe('fail')
+    await expect.poll(() => page.locator('tr[data-recommended]').getAttribute('data-candidate')).toBe('two-stage-buffered')
+    await page.screenshot({ path: `${SHOTS}/candidates-live-1280.png`, fullPage: true })
+    await expectAccessible(page)
+
+    await page.getByTestId('mc-run').click()
+    await page.getByTestId('mc-progress').waitFor({ timeout: 10_000 })
+    await expect.poll(() => page.getByTestId('mc-status').textContent(), { timeout: 60_000 }).toContain('done for these inputs')
+    expect(await page.getByTestId('source-monte-carlo').isChecked()).toBe(true)
+    await expect.poll(() => page.getByTestId('chart-inl-summary').textContent()).toContain('Widest envelope')
+    await page.locator('[data-testid="chart-inl"] .apexcharts-canvas').waitFor()
+    await page.screenshot({ path: `${SHOTS}/candidates-monte-carlo-1280.png`, fullPage: true })
+    await expectAccessible(page)
+
+    await page.getByLabel('What changed').fill('Glitch limit relaxed to 20 nV·s')
+    await page.getByRole('button', { name: 'Save revision' }).click()
+    await expect.poll(() => page.getByTestId('study-version').textContent()).toContain('revision 2')
+    await setField(page, 'INL target', '0.75 LSB')
+    await expect.poll(() => page.getByTestId('source-live').isChecked()).toBe(true)
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    await page.getByRole('button', { name: 'Save revision' }).click()
+    await expect.poll(() => page.getByTestId('study-version').textContent()).toContain('revision 3')
+    await page.getByLabel('Compare revision').selectOption('2')
+    await page.getByLabel('with revision').selectOption('3')
+    await page.getByTestId('compare-revisions').click()
+    await expect.poll(() => page.getByTestId('revision-compare').textContent()).toContain('INL target')
+    await page.context().close()
+  })
+
+  it('cancels a long Monte Carlo run and keeps the live comparison', async () => {
+    const page = await signedIn(DEMO.architect, studyUrl)
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    await setField(page, 'Monte Carlo trials', '100000')
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    await page.getByTestId('mc-run').click()
+    await page.getByTestId('mc-progress').waitFor({ timeout: 10_000 })
+    await page.getByTestId('mc-cancel').click()
+    await expect.poll(() => page.getByTestId('mc-status').textContent()).toContain('cancelled')
+    expect(await page.getByTestId('mc-run').isEnabled()).toBe(true)
+    expect(await page.getByTestId('source-live').isChecked()).toBe(true)
+    await page.context().close()
+  })
+
+  it('is readable at 390 px and passes axe', async () => {
+    const page = await signedIn(DEMO.engineer, studyUrl, 390)
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    await page.locator('[data-testid="chart-glitch"] .apexcharts-canvas').waitFor()
+    await page.screenshot({ path: `${SHOTS}/candidates-390.png`, fullPage: true })
+    await expectAccessible(page)
+    await page.context().close()
+  })
+})

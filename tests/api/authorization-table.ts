@@ -86,5 +86,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
     expect: { signedOut: 410 },
     request: () => ({ path: '/api/invitations/unknown-token-0123456789abc/accept', body: { password: 'long-enough-password' } })
   },
-  { route: 'GET /api/admin/mail', expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 200 }, request: () => ({}) }
+  { route: 'GET /api/admin/mail', expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 200 }, request: () => ({}) },
+  { route: 'GET /api/portfolio', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
+  { route: 'GET /api/portfolio/export', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) }
 ]

@@ -26,7 +26,13 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
       engine_version: evaluated?.engineVersion ?? ENGINE_VERSION, results: evaluated ? JSON.stringify(evaluated.results) : null,
       evaluation_id: body.evaluationId ?? null, note: body.note || null, author_id: user.id
     })
-    await trx('studies').where({ id }).update({ version: next, spec: JSON.stringify(body.spec), updated_at: trx.fn.now() })
+    const summary = evaluated ? portfolioSummary(evaluated.results) : null
+    await trx('studies').where({ id }).update({
+      version: next, spec: JSON.stringify(body.spec), updated_at: trx.fn.now(),
+      summary_candidate_id: summary?.candidateId ?? null, summary_area_mm2: summary?.areaMm2 ?? null,
+      summary_fail_count: summary?.failCount ?? null, summary_meeting_count: summary?.meetingCount ?? null,
+      summary_candidate_count: summary?.candidateCount ?? null
+    })
     await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'revision_saved', targetType: 'study', targetId: id, detail: { number: next, withResults: Boolean(evaluated) } }, trx)
     return next
   })

@@ -1,0 +1,49 @@
+import type { Knex } from 'knex'
+import type { PortfolioQuery } from '#shared/schemas/portfolio'
+import type { PortfolioRow } from '#shared/types/portfolio'
+
+const SORT_COLUMNS = { updated: 's.updated_at', title: 's.title', status: 's.status', area: 's.summary_area_mm2', fails: 's.summary_fail_count' } as const
+
+/** The team's studies matching the filters (no paging); every portfolio query starts here. */
+export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 'status' | 'q'>) {
+  const query = db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId)
+  if (q.status !== 'all') query.where('s.status', q.status)
+  if (q.q) {
+    const like = `%${q.q.replace(/[\\%_]/g, c => `\\${c}`)}%`
+    query.where(w => w.where('s.title', 'like', like).orWhere('s.block_name', 'like', like))
+  }
+  return query
+}
+
+/** One page (or, with `limit`, the first rows) sorted as asked, ties broken by id. */
+export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit = q.pageSize, offset = (q.page - 1) * q.pageSize) {
+  return portfolioBase(db, teamId, q)
+    .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
+      's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count')
+    .orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
+    .orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
+    .limit(limit).offset(offset)
+}
+
+/** Database row → the portfolio's shape. */
+export function toPortfolioRow(row: Record<string, unknown>): PortfolioRow {
+  const spec = (typeof row.spec === 'string' ? JSON.parse(row.spec) : row.spec) as { bits?: number, areaBudgetMm2?: number }
+  const evaluated = row.summary_candidate_count !== null
+  return {
+    id: row.id as number,
+    title: row.title as string,
+    blockName: row.block_name as string | null,
+    status: row.status as PortfolioRow['status'],
+    bits: spec.bits ?? null,
+    owner: row.owner as string,
+    revision: row.version as number,
+    recommendedId: row.summary_candidate_id as string | null,
+    evaluated,
+    areaMm2: row.summary_area_mm2 as number | null,
+    areaBudgetMm2: spec.areaBudgetMm2 ?? null,
+    failCount: row.summary_fail_count as number | null,
+    meetingCount: row.summary_meeting_count as number | null,
+    candidateCount: row.summary_candidate_count as number | null,
+    lastActivityAt: (row.updated_at as Date).toISOString()
+  }
+}

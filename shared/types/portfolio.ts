@@ -1,0 +1,23 @@
+import type { StudyStatus } from './studies'
+
+/** One study as the program manager's portfolio lists it. */
+export interface PortfolioRow {
+  id: number
+  title: string
+  blockName: string | null
+  status: StudyStatus
+  bits: number | null
+  owner: string
+  revision: number
+  /** the recommended option of the head revision's results (null: none meets spec, or not evaluated) */
+  recommendedId: string | null
+  evaluated: boolean
+  areaMm2: number | null
+  areaBudgetMm2: number | null
+  failCount: number | null
+  meetingCount: number | null
+  candidateCount: number | null
+  lastActivityAt: string
+}
+
+export interface PortfolioPage { items: PortfolioRow[], page: number, pageSize: number, total: number }

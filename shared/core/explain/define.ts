@@ -40,15 +40,16 @@ export function defineFormula(spec: FormulaSpec): Formula {
   checkSymbols(spec, node)
   const compiled: EvalFunction = compileExpression(spec.expression)
   const names = Object.keys(spec.inputs)
-  const constants = Object.fromEntries(Object.entries(spec.constants ?? {}).map(([k, c]) => [k, c.value]))
+  const constants = Object.entries(spec.constants ?? {}).map(([k, c]): [string, number] => [k, c.value])
   const compute = (inputs: Record<string, number>): number => {
-    const scope: Record<string, number> = { ...constants }
+    // a Map scope: mathjs uses it as is (a plain object would be wrapped on every call)
+    const scope = new Map<string, number>(constants)
     for (const name of names) {
       const v = inputs[name]
       if (typeof v !== 'number') {
         throw new FormulaError(`${spec.id}: input ${name} missing`)
       }
-      scope[name] = v
+      scope.set(name, v)
     }
     const result: unknown = compiled.evaluate(scope)
     return typeof result === 'number' ? result : Number.NaN

@@ -86,6 +86,31 @@ function legBuffer(count: number, view?: Float64Array): Float64Array {
 }
 
 /**
+ * g_j = 1/(2 + b·z_j + sw) (in this order: the rounding is part of the recorded results) for
+ * every leg into `g`; returns Σg and writes the positions of the first largest and first smallest
+ * g into `ext` (new records of iid values are rare: cheap branches).
+ */
+function sampleLegs(g: Float64Array, z: Float64Array, b: number, sw: number, ext: { hi: number, lo: number }): number {
+  let sum = 0
+  let hiV = -Infinity
+  let loV = Infinity
+  for (let j = 0; j < g.length; j++) {
+    const gj = 1 / (2 + b * z[j]! + sw)
+    g[j] = gj
+    sum += gj
+    if (gj > hiV) {
+      hiV = gj
+      ext.hi = j
+    }
+    if (gj < loV) {
+      loV = gj
+      ext.lo = j
+    }
+  }
+  return sum
+}
+
+/**
  * Unary legs all meet at the output node, so their weights are u_j = x_out·g_j with
  * g_j = 1/(R_j + R_on) and x_out = 1/(Σg + 1/(R_joint + R_ladder)); the binary weights are the
  * plain ladder's scaled by x_out/(R_joint + R_ladder). This is `segmentedWeights` (solve/ladder.ts)
@@ -101,17 +126,13 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
   const at = legCount
   const sw = p.switchRatio
   let g = legBuffer(legCount)
+  const extremes = { hi: 0, lo: 0 }
   return {
     key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
     normals: at + 2 * l + 1,
     run(z, out, env) {
       g = legBuffer(at, g)
-      let sumG = 0
-      for (let j = 0; j < at; j++) {
-        const gj = 1 / (2 + 2 * s2 * z[j]! + sw)
-        g[j] = gj
-        sumG += gj
-      }
+      const sumG = sampleLegs(g, z, 2 * s2, sw, extremes)
       const joint = 1 + p.sigmaUnit * z[at]!
       fillScaled(legs, z, at + 1, 2, s2)
       fillScaled(series, z, at + 1 + l, 1, p.sigmaUnit)
@@ -122,7 +143,7 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
       for (let i = 0; i < l; i++) {
         binary[i] = binary[i]! * (xOut / toLadder)
       }
-      linearityFromSegmentedWeights(g, binary, 0, p.def, out, scratch, env, xOut, xOut * sumG)
+      linearityFromSegmentedWeights(g, binary, 0, p.def, out, scratch, env, xOut, xOut * sumG, extremes)
     }
   }
 }

@@ -19,20 +19,65 @@ export interface UnaryExtremes {
   uLoV: number
 }
 
+/** Positions of the first largest and first smallest unary leg, when the caller found them already. */
+export interface LegExtremes {
+  hi: number
+  lo: number
+}
+
 /**
- * One pass over the unary legs (k = scale per leg in LSB, step = 2^L), group by group. With `env` (buckets at least one segment wide)
- * each bucket's range is widened as the pass goes; `keep` stores the cumulative values in
- * scratch.cum for buckets narrower than a segment.
+ * One pass over the unary legs (k = scale per leg in LSB, step = 2^L), group by group. With `env`
+ * (buckets at least one segment wide) each bucket's range is widened as the pass goes; `keep`
+ * stores the cumulative values in scratch.cum for buckets narrower than a segment. With `legs`
+ * the extreme legs are taken from it and the pass tracks only the cumulative INL.
  */
-export function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number): UnaryExtremes {
-  const legs = u.length
-  const group = env ? (1 << env.shift) / step : legs + 1
+export function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number, legs?: LegExtremes): UnaryExtremes {
+  const count = u.length
+  const group = env ? (1 << env.shift) / step : count + 1
   const x: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0, uHiV: -Infinity, uLoV: Infinity }
+  const fast = legs !== undefined && !keep
   let c = e0
-  for (let start = 0, b = 0; start <= legs; start += group, b++) {
-    c = unaryGroup(u, k, step, start, Math.min(legs + 1, start + group), c, x, keep ? scratch.cum : null, env, b, neg, pos)
+  for (let start = 0, b = 0; start <= count; start += group, b++) {
+    const end = Math.min(count + 1, start + group)
+    c = fast ? inlGroup(u, k, step, start, end, c, x, env, b, neg, pos) : unaryGroup(u, k, step, start, end, c, x, keep ? scratch.cum : null, env, b, neg, pos)
+  }
+  if (legs) {
+    x.uHi = legs.hi
+    x.uLo = legs.lo
   }
   return x
+}
+
+/**
+ * `unaryGroup` without the leg extremes and the kept values: the hot loop of a wide sweep (the
+ * caller's sampling pass found the extreme legs), so only the cumulative INL is carried.
+ */
+function inlGroup(u: ArrayLike<number>, k: number, step: number, start: number, end: number, c0: number, x: UnaryExtremes, env: Envelope | undefined, b: number, neg: number, pos: number): number {
+  const stop = Math.min(end, u.length)
+  let hi = -Infinity
+  let lo = Infinity
+  let c = c0
+  for (let m = start; m < stop; m++) {
+    hi = Math.max(hi, c)
+    lo = Math.min(lo, c)
+    c += u[m]! * k - step
+  }
+  if (end > stop) {
+    hi = Math.max(hi, c)
+    lo = Math.min(lo, c)
+  }
+  if (hi > x.hiV) {
+    x.hiV = hi
+    x.hiM = replayTo(u, k, step, start, end, c0, hi)
+  }
+  if (lo < x.loV) {
+    x.loV = lo
+    x.loM = replayTo(u, k, step, start, end, c0, lo)
+  }
+  if (env) {
+    widenBucket(env, b, lo + neg, hi + pos)
+  }
+  return c
 }
 
 /**

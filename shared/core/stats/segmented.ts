@@ -8,6 +8,7 @@ import type { Envelope } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
 import { segmentedEnvelope } from './segmented-envelope'
+import type { LegExtremes } from './segmented-scan'
 import { scanUnary } from './segmented-scan'
 
 /** Work arrays for one segmented shape (2^M entries for the cumulative unary INL). */
@@ -66,10 +67,11 @@ function segmentedLine(u: ArrayLike<number>, uScale: number, uTotal: number, w: 
  * @param w binary weights, MSB first (L entries, L ≥ 1)
  * @param uScale factor applied to every u (lets a caller pass leg conductances and the node voltage)
  * @param uTotal Σ u·uScale if already known (saves a pass), else NaN
+ * @param legs positions of the first largest and first smallest u, if already known (saves work in the scan)
  */
 export function linearityFromSegmentedWeights(
   u: ArrayLike<number>, w: ArrayLike<number>, offset: number, def: InlDefinition,
-  out: LinearityResult, scratch: SegmentedScratch, env?: Envelope, uScale = 1, uTotal = Number.NaN
+  out: LinearityResult, scratch: SegmentedScratch, env?: Envelope, uScale = 1, uTotal = Number.NaN, legs?: LegExtremes
 ): LinearityResult {
   const L = w.length
   const step = (1 << L)
@@ -91,7 +93,7 @@ export function linearityFromSegmentedWeights(
     }
   }
   const fine = env !== undefined && env.shift < L
-  const ext = scanUnary(u, uScale / s, step, e0, scratch, env && !fine ? env : undefined, fine, neg, pos)
+  const ext = scanUnary(u, uScale / s, step, e0, scratch, env && !fine ? env : undefined, fine, neg, pos, legs)
   out.inlMaxLsb = ext.hiV + pos
   out.inlMinLsb = ext.loV + neg
   out.inlMaxCode = ext.hiM * step + posC

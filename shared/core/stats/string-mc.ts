@@ -1,60 +1,71 @@
 /**
  * One Monte Carlo trial of a resistor string (MODELS.md §2.1, §4.2) straight from unit normals,
  * without building the level array: r_i = 1 + σ z_i, V(k) ∝ S_k = Σ_{i<k} r_i (code k has k
- * units below its tap). A light first pass gets the line (for the endpoint line only Σz); the
- * second pass gets INL (as a running sum), DNL and the envelope, bucket by bucket. Equal, to rounding, to `linearityFromLevels` on the
- * levels (checked in tests).
+ * units below its tap). A light first pass gets the line (for the endpoint line only Σz) and the
+ * extreme units (DNL); the second pass gets INL (as a running sum) and the envelope, bucket by
+ * bucket. Equal, to rounding, to `linearityFromLevels` on the levels (checked in tests).
  */
 import type { Envelope } from './envelope'
 import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
 
-function sumOf(z: Float64Array, count: number): number {
+/** Extreme units z over the one-code steps k = 0 … n − 2 (first occurrence), found by the line pass. */
+interface UnitExtremes {
+  zHi: number
+  zLo: number
+  zHiK: number
+  zLoK: number
+}
+
+/** Σ z[0 … n−2] (the endpoint line) and the extreme units; new records of iid values are rare, so the branches are cheap. */
+function endpointPass(z: Float64Array, n: number, x: UnitExtremes): number {
   let sum = 0
-  for (let k = 0; k < count; k++) {
-    sum += z[k]!
+  for (let k = 0; k < n - 1; k++) {
+    const zk = z[k]!
+    sum += zk
+    if (zk > x.zHi) {
+      x.zHi = zk
+      x.zHiK = k
+    }
+    if (zk < x.zLo) {
+      x.zLo = zk
+      x.zLoK = k
+    }
   }
   return sum
 }
 
-/** Line a + s·k through the levels S_k (endpoint: through S_0 = 0 and S_{n−1}). */
-function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition): { a: number, s: number } {
-  if (def === 'endpoint') {
-    return { a: 0, s: (n - 1 + sigma * sumOf(z, n - 1)) / (n - 1) }
-  }
-  return bestFitLine(z, n, sigma)
-}
-
-function bestFitLine(z: Float64Array, n: number, sigma: number): { a: number, s: number } {
+/** Least-squares line of the levels S_k and the extreme units (the top unit, k = n − 1, is no one-code step). */
+function bestFitPass(z: Float64Array, n: number, sigma: number, x: UnitExtremes): { a: number, s: number } {
   let s = 0
   let sumS = 0
   let sumKS = 0
   for (let k = 0; k < n; k++) {
     sumS += s
     sumKS += k * s
-    s += 1 + sigma * z[k]!
+    const zk = z[k]!
+    s += 1 + sigma * zk
+    if (k < n - 1) {
+      if (zk > x.zHi) {
+        x.zHi = zk
+        x.zHiK = k
+      }
+      if (zk < x.zLo) {
+        x.zLo = zk
+        x.zLoK = k
+      }
+    }
   }
   return leastSquaresLine(n, sumS, sumKS)
 }
 
-/** DNL extremes from the unit values r_k (steps k = 0 … n − 2), written into `out`. */
-function stringDnl(z: Float64Array, n: number, sigma: number, inv: number, out: LinearityResult): void {
-  let zMax = -Infinity
-  let zMin = Infinity
-  for (let k = 0; k < n - 1; k++) {
-    const zk = z[k]!
-    if (zk > zMax) {
-      zMax = zk
-      out.dnlMaxCode = k
-    }
-    if (zk < zMin) {
-      zMin = zk
-      out.dnlMinCode = k
-    }
+/** Line a + s·k through the levels S_k (endpoint: through S_0 = 0 and S_{n−1}); fills `x`. */
+function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition, x: UnitExtremes): { a: number, s: number } {
+  if (def === 'endpoint') {
+    return { a: 0, s: (n - 1 + sigma * endpointPass(z, n, x)) / (n - 1) }
   }
-  out.dnlMaxLsb = (1 + sigma * zMax) * inv - 1
-  out.dnlMinLsb = (1 + sigma * zMin) * inv - 1
+  return bestFitPass(z, n, sigma, x)
 }
 
 /** First code in [from, to) whose running INL (replayed from `start` with the same arithmetic) equals `target`. */
@@ -69,54 +80,30 @@ function inlCodeOf(z: Float64Array, from: number, to: number, start: number, c0:
   return to - 1
 }
 
-/** First index in [from, to) with z[k] === target. */
-function zCodeOf(z: Float64Array, from: number, to: number, target: number): number {
-  for (let k = from; k < to; k++) {
-    if (z[k] === target) {
-      return k
-    }
-  }
-  return to - 1
-}
-
-/** Running extremes of one trial: INL over codes, z over units (values, then codes). */
-interface StringExtremes {
-  hi: number
-  lo: number
-  zHi: number
-  zLo: number
-  zHiK: number
-  zLoK: number
-}
-
 /**
  * INL/DNL of a 2^N string whose unit errors are σ·z[0 … n−1] into `out`; widens `env` if given.
  * The top resistor (index n − 1) only changes the gain, so endpoint results ignore it.
  */
 export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlDefinition, out: LinearityResult, env?: Envelope): LinearityResult {
-  const line = stringLine(z, n, sigma, def)
+  const x: UnitExtremes = { zHi: -Infinity, zLo: Infinity, zHiK: 0, zLoK: 0 }
+  const line = stringLine(z, n, sigma, def, x)
   const inv = 1 / line.s
   const size = env ? 1 << env.shift : n
   // INL(k) = (S_k − a)/s − k, carried as a running value of size O(1 LSB): each unit adds
   // r_k/s − 1 = (inv − 1) + σ·inv·z_k. Rounding stays ~n·ε LSB instead of ~n·ε·2^N.
   const c0 = inv - 1
   const c1 = sigma * inv
-  const x: StringExtremes = { hi: -Infinity, lo: Infinity, zHi: -Infinity, zLo: Infinity, zHiK: 0, zLoK: 0 }
+  const range = { hi: -Infinity, lo: Infinity }
   let inl = -line.a * inv
   for (let b = 0, from = 0; from < n; b++, from += size) {
-    inl = stringBucket(z, from, from + size, inl, c0, c1, x, out, env, b)
+    inl = stringBucket(z, from, from + size, inl, c0, c1, range, out, env, b)
   }
-  out.inlMaxLsb = x.hi
-  out.inlMinLsb = x.lo
-  // the extremes seen include the top unit, which no one-code step uses: rescan if it is one of them
-  if (x.zHiK === n - 1 || x.zLoK === n - 1) {
-    stringDnl(z, n, sigma, inv, out)
-  } else {
-    out.dnlMaxLsb = (1 + sigma * x.zHi) * inv - 1
-    out.dnlMinLsb = (1 + sigma * x.zLo) * inv - 1
-    out.dnlMaxCode = x.zHiK
-    out.dnlMinCode = x.zLoK
-  }
+  out.inlMaxLsb = range.hi
+  out.inlMinLsb = range.lo
+  out.dnlMaxLsb = (1 + sigma * x.zHi) * inv - 1
+  out.dnlMinLsb = (1 + sigma * x.zLo) * inv - 1
+  out.dnlMaxCode = x.zHiK
+  out.dnlMinCode = x.zLoK
   return out
 }
 
@@ -126,35 +113,22 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
  * the running extreme, so values and codes equal a strict first-occurrence scan. Returns the INL
  * at `to`.
  */
-function stringBucket(z: Float64Array, from: number, to: number, inl0: number, c0: number, c1: number, x: StringExtremes, out: LinearityResult, env: Envelope | undefined, b: number): number {
+function stringBucket(z: Float64Array, from: number, to: number, inl0: number, c0: number, c1: number, range: { hi: number, lo: number }, out: LinearityResult, env: Envelope | undefined, b: number): number {
   let bHi = -Infinity
   let bLo = Infinity
-  let zHi = -Infinity
-  let zLo = Infinity
   let inl = inl0
   for (let k = from; k < to; k++) {
     bHi = Math.max(bHi, inl)
     bLo = Math.min(bLo, inl)
-    const zk = z[k]!
-    inl += c0 + c1 * zk
-    zHi = Math.max(zHi, zk)
-    zLo = Math.min(zLo, zk)
+    inl += c0 + c1 * z[k]!
   }
-  if (bHi > x.hi) {
-    x.hi = bHi
+  if (bHi > range.hi) {
+    range.hi = bHi
     out.inlMaxCode = inlCodeOf(z, from, to, inl0, c0, c1, bHi)
   }
-  if (bLo < x.lo) {
-    x.lo = bLo
+  if (bLo < range.lo) {
+    range.lo = bLo
     out.inlMinCode = inlCodeOf(z, from, to, inl0, c0, c1, bLo)
-  }
-  if (zHi > x.zHi) {
-    x.zHi = zHi
-    x.zHiK = zCodeOf(z, from, to, zHi)
-  }
-  if (zLo < x.zLo) {
-    x.zLo = zLo
-    x.zLoK = zCodeOf(z, from, to, zLo)
   }
   if (env) {
     widenBucket(env, b, bLo, bHi)

@@ -27,8 +27,9 @@ async function signedIn(email: string, path: string, width = 1280): Promise<Page
   await page.getByLabel('Email').fill(email)
   await page.getByLabel('Password').fill(DEMO_PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(url => url.pathname === path)
-  await page.getByTestId('sign-out').waitFor()
+  // 'commit', not 'load': on a busy shared machine the load event can lag far behind the page itself
+  await page.waitForURL(url => url.pathname === path, { waitUntil: 'commit', timeout: 60_000 })
+  await page.getByTestId('sign-out').waitFor({ timeout: 60_000 })
   return page
 }
 

@@ -1,13 +1,19 @@
 /**
- * Worker-thread entry of the evaluation pool: runs one task of an evaluation plan off the request
- * thread. Bundled to `<server output>/workers/evaluate.mjs` at build time (see nuxt.config.ts).
+ * Worker-thread entry of the evaluation pool: runs one task of an evaluation plan, or the final
+ * merge plus rule packs of a whole evaluation, off the request thread. Bundled to
+ * `<server output>/workers/evaluate.mjs` at build time (see nuxt.config.ts).
  * On Linux, setpriority(0) applies to the calling thread only, so this lowers just this worker
  * thread (nice 10) and the request thread wins the CPU while both cores compute; piscina's
  * `niceIncrement` alone did not do it here (its native helper is optional).
  */
+import './require-shim'
 import { setPriority } from 'node:os'
+import type { EvaluateInput } from '../../shared/core/contract/evaluate'
 import type { EvaluationPart, EvaluationTask } from '../../shared/core/evaluate'
-import { runEvaluationTask } from '../../shared/core/evaluate'
+import { mergeEvaluation, runEvaluationTask } from '../../shared/core/evaluate'
+import type { EvaluateOutputWithFindings } from '../../shared/findings/index'
+import { applyFindings } from '../../shared/findings/index'
+import type { RulePack } from '../../shared/findings/schema'
 
 try {
   setPriority(10)
@@ -15,7 +21,18 @@ try {
   // not permitted or not supported: run at normal priority
 }
 
-/** Runs one evaluation task (pure, synchronous) and returns its part. */
-export default function run(task: EvaluationTask): EvaluationPart {
+/** The last step of an evaluation: merge the parts and apply the built-in and team rule packs. */
+export interface FinishTask {
+  kind: 'finish'
+  input: EvaluateInput
+  parts: EvaluationPart[]
+  packs: RulePack[]
+}
+
+/** Runs one evaluation task (pure, synchronous) or the finishing step. */
+export default function run(task: EvaluationTask | FinishTask): EvaluationPart | Promise<EvaluateOutputWithFindings> {
+  if (task.kind === 'finish') {
+    return applyFindings(task.input, mergeEvaluation(task.input, task.parts), task.packs)
+  }
   return runEvaluationTask(task)
 }

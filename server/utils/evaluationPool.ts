@@ -45,11 +45,26 @@ function runTask(task: Task, signal?: AbortSignal): Promise<Part> {
 
 export interface EvaluationProgress { done: number, total: number }
 
+/** Lets timers and I/O run (a health probe, other requests) before the caller serialises the output. */
+function nextTurn(): Promise<void> {
+  return new Promise(resolve => setImmediate(resolve))
+}
+
+/**
+ * Merge plus rule packs: tens of milliseconds for a 16-bit sweep (the rules engine most), which
+ * on the request thread delayed every request arriving meanwhile, so a worker does it too.
+ */
+async function finish(input: EvaluateInput, parts: Part[], packs: readonly RulePack[], signal?: AbortSignal): Promise<EvaluateOutput> {
+  const p = usePool()
+  if (!p) return await applyFindings(input, mergeEvaluation(input, parts), packs)
+  return await (p.run({ kind: 'finish', input, parts, packs: [...packs] }, { signal }) as Promise<EvaluateOutput>)
+}
+
 /**
  * Evaluates a validated input with every Monte Carlo task on a worker thread, so requests keep
  * being served meanwhile. Tasks queue in the pool; `onProgress` fires after each finished task.
  * The merged output then gets findings, ranking and recommendation from the built-in rule packs
- * plus `packs` (the team's enabled ones).
+ * plus `packs` (the team's enabled ones), also on a worker thread.
  */
 export async function evaluateInPool(input: EvaluateInput, options: { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void>, packs?: readonly RulePack[] } = {}): Promise<EvaluateOutput> {
   const tasks = planEvaluation(input)
@@ -62,7 +77,9 @@ export async function evaluateInPool(input: EvaluateInput, options: { signal?: A
     await options.onProgress?.({ done, total: tasks.length })
     return part
   }))
-  return await applyFindings(input, mergeEvaluation(input, parts), options.packs ?? [])
+  const output = await finish(input, parts, options.packs ?? [], options.signal)
+  await nextTurn()
+  return output
 }
 
 /** Number of tasks an input splits into (for progress reporting before the run starts). */

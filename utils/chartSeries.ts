@@ -44,3 +44,8 @@ export function seriesExtremes(series: CodeSeries): { min: number | null, minCod
   })
   return { min, minCode, max, maxCode }
 }
+
+/** log10 of a positive value for a chart plotted in decades; null (a gap) for zero, negative or missing. */
+export function logOrNull(v: number | null | undefined): number | null {
+  return v !== null && v !== undefined && v > 0 ? Math.log10(v) : null
+}

@@ -74,6 +74,11 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     await page.getByLabel('What changed').fill('Glitch limit relaxed to 20 nV·s')
     await page.getByRole('button', { name: 'Save revision' }).click()
     await expect.poll(() => page.getByTestId('study-version').textContent()).toContain('revision 2')
+    // The finished Monte Carlo run of exactly these inputs is kept with the revision.
+    await expect.poll(() => page.getByText(/Revision 2\b/).first().locator('..').textContent()).toContain('with results')
+    // Every headline number opens its derivation with the user's values substituted.
+    await page.getByTestId('candidate-explain').waitFor()
+    expect(await page.getByTestId('candidate-explain').textContent()).toContain('How the numbers of')
     await setField(page, 'INL target', '0.75 LSB')
     await expect.poll(() => page.getByTestId('source-live').isChecked()).toBe(true)
     await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')

@@ -1,5 +1,5 @@
 import type { EvaluateOutputWithFindings } from '#shared/findings/index'
-import type { PreviewAnswer, PreviewReply, StoredTeamPack } from '~~/workers/preview'
+import type { PreviewAnswer, PreviewReply } from '~~/workers/preview'
 
 export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
 
@@ -7,12 +7,10 @@ export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
 export const PREVIEW_DEBOUNCE_MS = 300
 
 /** Runs previews in a module Web Worker when there is one, else in-process (SSR never calls it). */
-type Runner = (seq: number, raw: unknown, packs: StoredTeamPack[]) => Promise<PreviewReply>
-
-function previewRunner(): Runner {
+function previewRunner(): (seq: number, raw: unknown) => Promise<PreviewReply> {
   if (typeof Worker === 'undefined') {
     // Loaded on demand, so the engine stays out of the page bundle when a Worker carries it.
-    return async (seq, raw, packs) => ({ seq, ...(await (await import('~~/workers/preview')).computePreview(raw, packs)) })
+    return async (seq, raw) => ({ seq, ...(await (await import('~~/workers/preview')).computePreview(raw)) })
   }
   const worker = new Worker(new URL('../workers/preview.worker.ts', import.meta.url), { type: 'module' })
   const waiting = new Map<number, (reply: PreviewReply) => void>()
@@ -20,9 +18,9 @@ function previewRunner(): Runner {
     waiting.get(event.data.seq)?.(event.data)
     waiting.delete(event.data.seq)
   }
-  return (seq, raw, packs) => new Promise((resolve) => {
+  return (seq, raw) => new Promise((resolve) => {
     waiting.set(seq, resolve)
-    worker.postMessage({ seq, raw: JSON.parse(JSON.stringify(raw)), packs: JSON.parse(JSON.stringify(packs)) })
+    worker.postMessage({ seq, raw: JSON.parse(JSON.stringify(raw)) })
   })
 }
 
@@ -35,9 +33,7 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
   const result = shallowRef<EvaluateOutputWithFindings | null>(null)
   const issues = ref<{ path: string, message: string }[]>([])
   const state = ref<PreviewState>('idle')
-  let run: Runner | null = null
-  /** the team's enabled rule packs, run with the built-in ones */
-  let packs: StoredTeamPack[] = []
+  let run: ((seq: number, raw: unknown) => Promise<PreviewReply>) | null = null
   let latest = 0
   let timer: ReturnType<typeof setTimeout> | null = null
 
@@ -55,7 +51,7 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
 
   async function compute(seq: number, raw: unknown) {
     run ??= previewRunner()
-    const reply = await run(seq, raw, packs)
+    const reply = await run(seq, raw)
     if (reply.seq === latest) accept(reply)
   }
 
@@ -77,10 +73,5 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
     accept({ ok: false, issues: list })
   }
 
-  /** Sets the team packs for the previews that follow. */
-  function setPacks(next: StoredTeamPack[]) {
-    packs = next
-  }
-
-  return { result, issues, state, request, invalidate, setPacks }
+  return { result, issues, state, request, invalidate }
 }

@@ -4,7 +4,6 @@ import { rankEvaluation } from '#shared/findings/index'
 import type { EvaluateOutputWithFindings, Finding } from '#shared/findings/index'
 import { DEFAULT_WEIGHTS } from '#shared/findings/weights'
 import type { RankingWeights } from '#shared/findings/weights'
-import type { RulePackListDto } from '#shared/types/rulePacks'
 import { canonicalJson } from '#shared/utils/revisionDiff'
 
 /** Which result the Candidates area shows. */
@@ -75,16 +74,8 @@ export const useComparisonStore = defineStore('comparison', () => {
       studyId.value = id
       weights.value = storedWeights(id)
       source.value = 'live'
-      void loadTeamPacks()
     }
     setSaved(savedResults, savedInputs)
-  }
-
-  /** The team's enabled rule packs, so the live findings match what the server will find. */
-  async function loadTeamPacks() {
-    const list = await $fetch<RulePackListDto>('/api/rule-packs').catch(() => null)
-    preview.setPacks((list?.team ?? []).filter(p => p.enabled).map(p => ({ packId: p.packId, version: p.version, pack: p.pack })))
-    if (inputs.value && preview.state.value !== 'invalid') preview.request(inputs.value)
   }
 
   /** The head revision's results and the inputs they belong to. */

@@ -2,7 +2,7 @@ import type { Knex } from 'knex'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
 import { BUILT_IN_PACKS } from '#shared/findings/registry'
 import type { RulePack, RulePackDocument } from '#shared/findings/schema'
-import { teamRulePack } from '#shared/findings/validate'
+import { checkRulePack } from '#shared/findings/validate'
 import type { Role } from '#shared/types/auth'
 import type { BuiltInPackDto, RulePackDto } from '#shared/types/rulePacks'
 
@@ -40,9 +40,9 @@ export async function enabledTeamPacks(teamId: number): Promise<RulePack[]> {
   const rows: PackRow[] = await useDb()('rule_packs').where({ team_id: teamId, enabled: true }).orderBy('pack_id')
   const packs: RulePack[] = []
   for (const row of rows) {
-    const team = teamRulePack({ packId: row.pack_id, version: row.version, pack: parsed(row.pack) })
-    if (team.pack) packs.push(team.pack)
-    else console.warn(`[rungwise] skipped rule pack: ${team.message}`)
+    const check = checkRulePack(parsed(row.pack), `team pack ${row.pack_id}`)
+    if (check.ok) packs.push({ ...check.pack, id: row.pack_id, version: row.version, source: 'team' })
+    else console.warn(`[rungwise] skipped rule pack: ${check.message}`)
   }
   return packs
 }

@@ -81,10 +81,3 @@ export function loadRulePack(raw: unknown, file: string, source: RulePack['sourc
   }
   return { ...check.pack, version: check.pack.version ?? 1, source }
 }
-
-/** A team pack as stored (id, version and document), ready to run; null (with why) when it no longer validates. */
-export function teamRulePack(stored: { packId: string, version: number, pack: unknown }): { pack: RulePack | null, message?: string } {
-  const check = checkRulePack(stored.pack, `team pack ${stored.packId}`)
-  if (!check.ok) return { pack: null, message: check.message }
-  return { pack: { ...check.pack, id: stored.packId, version: stored.version, source: 'team' } }
-}

@@ -1,10 +1,9 @@
 import { mkdirSync } from 'node:fs'
 import { join } from 'node:path'
-import AxeBuilder from '@axe-core/playwright'
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { launchBrowser, newContext } from '../support/browser'
-import { DEMO, DEMO_PASSWORD } from '../support/http'
+import { expectAccessible, launchBrowser, signedInPage } from '../support/browser'
+import { DEMO } from '../support/http'
 
 const SHOTS = join(process.cwd(), 'tests/e2e/screenshots')
 let browser: Browser
@@ -19,25 +18,8 @@ afterAll(async () => {
   await close()
 })
 
-async function signedIn(email: string, path: string, width = 1280): Promise<Page> {
-  const context = await newContext(browser, inject('baseUrl'), width)
-  const page = await context.newPage()
-  await page.goto(`/sign-in?redirect=${encodeURIComponent(path)}`)
-  await page.getByLabel('Email').fill(email)
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(url => url.pathname === path)
-  // The URL changes before the new page has rendered (its data loads first): wait for the app shell.
-  await page.getByTestId('sign-out').waitFor()
-  await page.locator('main h1').first().waitFor()
-  return page
-}
-
-/** axe-core: no serious or critical violations (WCAG rules as axe ships them). */
-async function expectAccessible(page: Page) {
-  const { violations } = await new AxeBuilder({ page }).analyze()
-  const bad = violations.filter(v => v.impact === 'serious' || v.impact === 'critical')
-  expect(bad.map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)).toEqual([])
+function signedIn(email: string, path: string, width = 1280): Promise<Page> {
+  return signedInPage(browser, inject('baseUrl'), email, path, width)
 }
 
 const field = (page: Page, label: string) => page.getByLabel(label, { exact: true })

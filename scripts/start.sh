@@ -15,6 +15,8 @@ bash scripts/ensure-deps.sh mariadb-server
 bash scripts/db.sh start
 npx tsx scripts/migrate.ts latest
 npx tsx scripts/migrate.ts seed
+# The demo studies' first inputs, evaluated by the engine (once; idempotent).
+npx tsx scripts/demo-results.ts
 
 # A per-install signing secret, unless the deployment provides one.
 if [ -z "${NUXT_AUTH_SECRET:-}" ]; then

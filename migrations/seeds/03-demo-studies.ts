@@ -13,13 +13,13 @@ export const STUDIES = [
     title: 'Valve positioner set-point DAC, 16 bit',
     block_name: 'Actuator loop — set point',
     owner: 'architect@harrowlake.example',
-    spec: { bits: 16, vrefV: 4.096, updateRateHz: 10e3, loadCapacitanceF: 20e-12, loadResistanceOhm: 1e6, inlTargetLsb: 2, dnlTargetLsb: 0.9, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.4, glitchLimitVs: 200e-12, refSourceOhm: 2, powerBudgetW: 5e-3 }
+    spec: { bits: 16, vrefV: 4.096, updateRateHz: 10e3, loadCapacitanceF: 20e-12, loadResistanceOhm: 1e6, inlTargetLsb: 2, dnlTargetLsb: 0.9, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.4, glitchLimitVs: 2e-9, refSourceOhm: 2, powerBudgetW: 5e-3 }
   },
   {
     title: 'LED bias DAC, 10 bit',
     block_name: 'Optical channel — LED current',
     owner: 'engineer@harrowlake.example',
-    spec: { bits: 10, vrefV: 1.2, updateRateHz: 1e6, loadCapacitanceF: 5e-12, loadResistanceOhm: null, inlTargetLsb: 1, dnlTargetLsb: 0.5, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.02, glitchLimitVs: 20e-12, refSourceOhm: 0, powerBudgetW: 0.5e-3 }
+    spec: { bits: 10, vrefV: 1.2, updateRateHz: 1e6, loadCapacitanceF: 5e-12, loadResistanceOhm: null, inlTargetLsb: 1, dnlTargetLsb: 0.5, yieldTarget: 0.99, monotonicRequired: true, areaBudgetMm2: 0.02, glitchLimitVs: 20e-12, refSourceOhm: 0, powerBudgetW: 2e-3 }
   }
 ]
 

@@ -10,8 +10,11 @@
  *    on a shared machine the wall time moves with other processes, the CPU time much less, and
  *    CPU time / 2 is what two idle cores would need.
  */
-import { loadavg } from 'node:os'
+import { mkdtempSync, rmSync } from 'node:fs'
+import { loadavg, tmpdir } from 'node:os'
+import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
+import { build } from 'esbuild'
 import Piscina from 'piscina'
 import type { EvaluateInput, EvaluateOutput } from '../../shared/core/contract/evaluate'
 import type { EvaluationPart } from '../../shared/core/evaluate'
@@ -53,9 +56,22 @@ function strip(o: EvaluateOutput): string {
 }
 
 /** Evaluation rows (see the file comment). */
+/**
+ * Bundles the bench worker the way nuxt.config.ts bundles the server's (esbuild, one ESM file),
+ * so the pool runs the code the server runs rather than tsx's per-module transpiled form.
+ */
+async function bundledWorker(dir: string): Promise<string> {
+  const outfile = join(dir, 'evaluate-worker.mjs')
+  await build({
+    entryPoints: [fileURLToPath(new URL('./evaluate-worker.ts', import.meta.url))],
+    outfile, bundle: true, platform: 'node', format: 'esm', target: 'node20', logLevel: 'warning'
+  })
+  return outfile
+}
+
 export async function runEvaluateBench(): Promise<BenchRow[]> {
-  const filename = fileURLToPath(new URL('./evaluate-worker.ts', import.meta.url))
-  const pool = new Piscina({ filename, minThreads: 2, maxThreads: 2, execArgv: ['--import', 'tsx'] })
+  const dir = mkdtempSync(join(tmpdir(), 'rungwise-bench-worker-'))
+  const pool = new Piscina({ filename: await bundledWorker(dir), minThreads: 2, maxThreads: 2 })
   try {
     const input = exampleInput(16, 2000)
     const load = loadavg()[0]!
@@ -82,5 +98,6 @@ export async function runEvaluateBench(): Promise<BenchRow[]> {
     ]
   } finally {
     await pool.destroy()
+    rmSync(dir, { recursive: true, force: true })
   }
 }

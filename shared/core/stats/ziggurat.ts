@@ -101,8 +101,7 @@ export class FastNormalGenerator {
    * samples: one word, one table test) runs on local copies of the state; a rejected first test
    * saves the state and finishes that sample in `slowSample`, which consumes the following words
    * of the same stream. Hot loop kept whole (and long) on purpose: the generator step must stay
-   * inlined in it; the running sum and the rare record branches hide behind the generator's own
-   * dependency chain.
+   * inlined in it (the running sum and the rare record branches hide behind its dependency chain).
    */
   fill(out: Float64Array, start = 0, end = out.length): void {
     const st = this.st
@@ -193,3 +192,8 @@ export class FastNormalGenerator {
     }
   }
 }
+
+// Type feedback for all of `fill`, loop exit included, before V8 optimizes it: the first real call
+// is long enough for on-stack replacement to compile the loop before the code after it ever ran,
+// and that code then left through a deoptimization on every later call (a throwaway generator).
+new FastNormalGenerator(1).fill(new Float64Array(64))

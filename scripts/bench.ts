@@ -2,6 +2,7 @@
  * `npm run bench`: runs every benchmark section, prints one table and writes
  * bench-report.json (git-ignored). Exit code 1 when any row misses its target.
  * Add a section by appending `{ section, run }` to SECTIONS; `run` returns BenchRow[].
+ * `npm run bench -- solve evaluate` runs only the named sections (`--help` lists them).
  */
 import { writeFileSync } from 'node:fs'
 import type { BenchRow } from './bench/solve'
@@ -20,7 +21,6 @@ const SECTIONS: Section[] = [
   { section: 'api', run: runApiBench },
   { section: 'montecarlo', run: runMonteCarloBench },
   { section: 'evaluate', run: runEvaluateBench }
-  // other sections (Monte Carlo / evaluation, API) go here
 ]
 
 function format(x: number): string {
@@ -29,9 +29,22 @@ function format(x: number): string {
   return a >= 1e5 || a < 1e-3 ? x.toExponential(3) : x.toPrecision(4)
 }
 
+/** The sections named on the command line (all when none is named). */
+function selected(args: readonly string[]): Section[] {
+  if (args.length === 0) return SECTIONS
+  const unknown = args.filter(a => !SECTIONS.some(s => s.section === a))
+  if (unknown.length > 0) throw new Error(`unknown section ${unknown.join(', ')} (sections: ${SECTIONS.map(s => s.section).join(', ')})`)
+  return SECTIONS.filter(s => args.includes(s.section))
+}
+
 async function main(): Promise<number> {
+  const args = process.argv.slice(2)
+  if (args.includes('--help')) {
+    process.stdout.write(`usage: npm run bench [-- section ...]\nsections: ${SECTIONS.map(s => s.section).join(', ')}\n`)
+    return 0
+  }
   const report: Array<BenchRow & { section: string }> = []
-  for (const s of SECTIONS) {
+  for (const s of selected(args)) {
     for (const row of await s.run()) report.push({ section: s.section, ...row })
   }
   for (const r of report) {

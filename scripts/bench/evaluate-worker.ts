@@ -1,6 +1,6 @@
 /**
- * Worker entry for the evaluation benchmark (piscina): runs one evaluation task.
- * Under tsx the pool starts workers with `execArgv: ['--import', 'tsx']`.
+ * Worker entry for the evaluation benchmark (piscina): runs one evaluation task. The bench bundles
+ * it with esbuild first (as nuxt.config.ts bundles the server's worker), so no loader is needed.
  * On Linux, setpriority(0) applies to the calling thread only, so this lowers just the worker
  * thread (nice 10) and the main thread keeps answering while both cores compute.
  */

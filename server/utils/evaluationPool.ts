@@ -25,12 +25,18 @@ function workerFile(): string | null {
   return null
 }
 
-/** The process-wide worker pool (one thread per core), or null where no worker bundle exists. */
+/**
+ * The process-wide worker pool (one thread per core, all kept alive), or null where no worker
+ * bundle exists. piscina's default minimum is half the cores, so after a minute idle a 2-core
+ * server was down to one thread and the next evaluation waited for a cold second one (start,
+ * bundle load, JIT warm-up) while its tasks queued on the first.
+ */
 function usePool(): Piscina | null {
   if (pool === undefined) {
     const filename = workerFile()
+    const threads = Math.max(1, availableParallelism())
     // Lower priority for Monte Carlo threads, so request handling on the main thread wins the CPU.
-    pool = filename ? new Piscina({ filename, maxThreads: Math.max(1, availableParallelism()), idleTimeout: 60_000, niceIncrement: 10 }) : null
+    pool = filename ? new Piscina({ filename, minThreads: threads, maxThreads: threads, idleTimeout: 60_000, niceIncrement: 10 }) : null
     if (!pool) console.warn('[rungwise] no evaluation worker bundle found; evaluating on the request thread')
   }
   return pool

@@ -81,8 +81,20 @@ function traceSolved(a: AnalyticCandidate, input: EvaluateInput, trace: Trace): 
 
 /** Levels of a voltage output under a resistive load: V·R_L/(R_L + R_out(k)). */
 function loadedInl(value: Float64Array, rout: Float64Array, loadOhm: number, input: EvaluateInput): number {
-  const loaded = value.map((v, k) => (v * loadOhm) / (loadOhm + rout[k]!))
+  const loaded = new Float64Array(value.length)
+  for (let k = 0; k < value.length; k++) {
+    loaded[k] = (value[k]! * loadOhm) / (loadOhm + rout[k]!)
+  }
   return inlAbsLsb(linearityFromLevels(loaded, input.options.inlDefinition, newLinearityResult()))
+}
+
+/** R_in(k) = V_REF / I_REF(k) per code (a loop: TypedArray.map's callback per code was a hot spot). */
+function inputResistance(irefA: Float64Array, vrefV: number): Float64Array {
+  const out = new Float64Array(irefA.length)
+  for (let k = 0; k < irefA.length; k++) {
+    out[k] = vrefV / irefA[k]!
+  }
+  return out
 }
 
 /** Per-code output resistance driving the load: the I–V amplifier's R_fb = R stands in for current mode. */
@@ -145,7 +157,7 @@ export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trac
     glitch,
     series: {
       irefA: decimateSeries(sol.irefA, options.envelopePoints),
-      rinOhm: decimateSeries(sol.irefA.map(i => spec.vrefV / i), options.envelopePoints),
+      rinOhm: decimateSeries(inputResistance(sol.irefA, spec.vrefV), options.envelopePoints),
       routOhm: decimateSeries(sol.routOhm, options.envelopePoints)
     }
   }

@@ -38,13 +38,22 @@ export function sourceInducedInlLsb(irefA: Float64Array, vrefV: number, rsOhm: n
   return inlAbsLsb(linearityFromLevels(levels, def, newLinearityResult()))
 }
 
+/** max(0, largest entry) (a loop: a reduce with a callback per code cost more than the rest of the pass). */
+function largest(a: ArrayLike<number>): number {
+  let m = 0
+  for (let k = 0; k < a.length; k++) {
+    m = Math.max(m, a[k]!)
+  }
+  return m
+}
+
 /**
  * Largest R_s (ohms) whose INL alone stays within `budgetLsb`: a first-order estimate from a small
  * probe, then secant steps on the exact curve (INL grows about linearly with R_s).
  */
 export function allowedSourceOhm(irefA: Float64Array, vrefV: number, budgetLsb: number, def: InlDefinition): number {
   const levels = new Float64Array(irefA.length)
-  const rinMin = vrefV / irefA.reduce((m, v) => Math.max(m, v), 0)
+  const rinMin = vrefV / largest(irefA)
   const probe = rinMin * 1e-6
   const f = (rs: number) => sourceInducedInlLsb(irefA, vrefV, rs, def, levels) - budgetLsb
   let r0 = probe

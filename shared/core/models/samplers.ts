@@ -11,6 +11,7 @@ import { envelopeFromBinary } from '../stats/envelope'
 import type { InlDefinition, LinearityResult } from '../stats/linearity'
 import { binaryLine, linearityFromBinaryWeights } from '../stats/linearity'
 import { createSegmentedScratch, linearityFromSegmentedWeights } from '../stats/segmented'
+import type { NormalsSummary } from '../stats/string-mc'
 import { stringTrial } from '../stats/string-mc'
 import { createTwoStageScratch, twoStageTrial } from '../stats/two-stage'
 import type { CandidateShape, TwoRConstruction } from './shapes'
@@ -21,7 +22,9 @@ export interface TrialSampler {
   /** equal keys give identical results from the same z (computed once per trial) */
   key: string
   normals: number
-  run: (z: Float64Array, out: LinearityResult, env?: Envelope) => void
+  /** set when `run` can use the sum and first extremes of z[0 … summedPrefix) (the driver passes them as `zs`) */
+  summedPrefix?: number
+  run: (z: Float64Array, out: LinearityResult, env?: Envelope, zs?: NormalsSummary) => void
 }
 
 /** Sampling parameters of one candidate. `switchRatio` = R_on / R_unit; `offsetSigma` = σ_os / V_REF. */
@@ -178,8 +181,9 @@ export function createSampler(s: CandidateShape, p: SamplerParams): TrialSampler
       return {
         key: `string:${s.bits}:${p.sigmaUnit}:${p.def}`,
         normals: (1 << s.bits),
-        run: (z, out, env) => {
-          stringTrial(z, (1 << s.bits), p.sigmaUnit, p.def, out, env)
+        summedPrefix: p.def === 'endpoint' ? (1 << s.bits) - 1 : undefined,
+        run: (z, out, env, zs) => {
+          stringTrial(z, (1 << s.bits), p.sigmaUnit, p.def, out, env, zs)
         }
       }
     case 'r2r-voltage':

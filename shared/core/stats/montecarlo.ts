@@ -9,11 +9,14 @@
  * also get smaller variance. Candidates with the same sampler key (direct/tree strings, equal
  * R-2R ladders) are computed once per trial.
  *
+ * The generator is filled in two calls (z[0, prefix) then the rest): the same stream, in order.
+ *
  * Reproducibility: the chunk's generator is seeded with deriveSeed(seed, chunkIndex) and chunks
  * have a fixed size chosen by the planner, so the merged result does not depend on how many
  * workers ran the chunks.
  */
 import type { TrialSampler } from '../models/samplers'
+import type { NormalsSummary } from './string-mc'
 import type { McTally, TallyTargets } from './accumulator'
 import { absorbEnvelope, addTrial, createTally } from './accumulator'
 import type { Envelope } from './envelope'
@@ -45,10 +48,19 @@ export function runMonteCarloChunk(chunk: McChunk, samplers: readonly TrialSampl
   const results = keys.map(() => newLinearityResult())
   const tallies = keys.map(() => createTally(envs[0]?.min.length ?? 1))
   const shift = envs[0]?.shift ?? 0
+  // The generator sums what it writes: filling z[0, prefix) on its own hands that sum (and the
+  // extremes) to the samplers that asked for it, which saves them a pass over up to 2^16 normals.
+  const prefix = Math.min(normals, first.find(s => s.summedPrefix !== undefined)?.summedPrefix ?? 0)
+  const summary: NormalsSummary = { count: prefix, sum: 0, hiK: 0, loK: 0 }
+  const given = first.map(s => (s.summedPrefix === prefix && prefix > 0 ? summary : undefined))
   for (let t = 0; t < chunk.trials; t++) {
-    gen.fill(z)
+    gen.fill(z, 0, prefix)
+    summary.sum = gen.filled.sum
+    summary.hiK = gen.filled.hiK
+    summary.loK = gen.filled.loK
+    gen.fill(z, prefix, normals)
     for (let i = 0; i < first.length; i++) {
-      first[i]!.run(z, results[i]!, envs[i])
+      first[i]!.run(z, results[i]!, envs[i], given[i])
       addTrial(tallies[i]!, results[i]!, chunk.targets, shift)
     }
   }

@@ -60,9 +60,27 @@ function bestFitPass(z: Float64Array, n: number, sigma: number, x: UnitExtremes)
   return leastSquaresLine(n, sumS, sumKS)
 }
 
+/**
+ * Σ z[0 … count) in index order and the first largest and smallest positions there, as the
+ * generator found them while writing z (stats/montecarlo.ts); equal to what `endpointPass` computes.
+ */
+export interface NormalsSummary {
+  count: number
+  sum: number
+  hiK: number
+  loK: number
+}
+
 /** Line a + s·k through the levels S_k (endpoint: through S_0 = 0 and S_{n−1}); fills `x`. */
-function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition, x: UnitExtremes): { a: number, s: number } {
+function stringLine(z: Float64Array, n: number, sigma: number, def: InlDefinition, x: UnitExtremes, zs?: NormalsSummary): { a: number, s: number } {
   if (def === 'endpoint') {
+    if (zs && zs.count === n - 1 && n > 1) {
+      x.zHi = z[zs.hiK]!
+      x.zHiK = zs.hiK
+      x.zLo = z[zs.loK]!
+      x.zLoK = zs.loK
+      return { a: 0, s: (n - 1 + sigma * zs.sum) / (n - 1) }
+    }
     return { a: 0, s: (n - 1 + sigma * endpointPass(z, n, x)) / (n - 1) }
   }
   return bestFitPass(z, n, sigma, x)
@@ -83,10 +101,11 @@ function inlCodeOf(z: Float64Array, from: number, to: number, start: number, c0:
 /**
  * INL/DNL of a 2^N string whose unit errors are σ·z[0 … n−1] into `out`; widens `env` if given.
  * The top resistor (index n − 1) only changes the gain, so endpoint results ignore it.
+ * `zs`, the summary of z[0 … n−1) when the caller has it, saves the endpoint line's pass.
  */
-export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlDefinition, out: LinearityResult, env?: Envelope): LinearityResult {
+export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlDefinition, out: LinearityResult, env?: Envelope, zs?: NormalsSummary): LinearityResult {
   const x: UnitExtremes = { zHi: -Infinity, zLo: Infinity, zHiK: 0, zLoK: 0 }
-  const line = stringLine(z, n, sigma, def, x)
+  const line = stringLine(z, n, sigma, def, x, zs)
   const inv = 1 / line.s
   const size = env ? 1 << env.shift : n
   // INL(k) = (S_k − a)/s − k, carried as a running value of size O(1 LSB): each unit adds

@@ -46,10 +46,21 @@ buildTables()
 const TWO_POW_M32 = 2.3283064365386963e-10
 
 /** A seeded generator of standard normal deviates with a bulk `fill`. Not thread-shared. */
+/** What the last `fill` wrote: out[start, end), Σ in index order, first largest and smallest positions. */
+export interface FilledRange {
+  start: number
+  end: number
+  sum: number
+  hiK: number
+  loK: number
+}
+
 export class FastNormalGenerator {
   /** xoshiro128** state; an Int32Array keeps one field representation (int32 values exceed V8's small-integer range) */
   private readonly st = new Int32Array(4)
   private readonly one = new Float64Array(1)
+  /** Summary of the last `fill` (overwritten by the next one, `next` included). */
+  readonly filled: FilledRange = { start: 0, end: 0, sum: 0, hiK: 0, loK: 0 }
 
   /** @param seed any safe integer; the same seed always yields the same sequence */
   constructor(seed: number) {
@@ -84,10 +95,13 @@ export class FastNormalGenerator {
   }
 
   /**
-   * Fills out[start, end) with standard normals. The fast path (about 99 % of samples: one word,
-   * one table test) runs on local copies of the state; a rejected first test saves the state and
-   * finishes that sample in `slowSample`, which consumes the following words of the same stream.
-   * Hot loop kept whole (and long) on purpose: the generator step must stay inlined in it.
+   * Fills out[start, end) with standard normals and records their sum and first extremes in
+   * `filled` (the sum in index order, so it equals a later left-to-right sum exactly; a caller
+   * that needs Σz saves that pass, see stats/montecarlo.ts). The fast path (about 99 % of
+   * samples: one word, one table test) runs on local copies of the state; a rejected first test
+   * saves the state and finishes that sample in `slowSample`, which consumes the following words
+   * of the same stream. Hot loop kept whole (and long) on purpose: the generator step must stay
+   * inlined in it (the running sum and the rare record branches hide behind its dependency chain).
    */
   fill(out: Float64Array, start = 0, end = out.length): void {
     const st = this.st
@@ -95,6 +109,11 @@ export class FastNormalGenerator {
     let s1 = st[1]!
     let s2 = st[2]!
     let s3 = st[3]!
+    let sum = 0
+    let hi = -Infinity
+    let lo = Infinity
+    let hiK = start
+    let loK = start
     let k = start
     while (k < end) {
       const m = Math.imul(s1, 5)
@@ -109,7 +128,18 @@ export class FastNormalGenerator {
       const iz = u & 127
       const ji = u >> 7
       if ((ji ^ (ji >> 31)) < KI[iz]!) {
-        out[k++] = (ji + 0.5) * WN[iz]!
+        const x = (ji + 0.5) * WN[iz]!
+        out[k] = x
+        sum += x
+        if (x > hi) {
+          hi = x
+          hiK = k
+        }
+        if (x < lo) {
+          lo = x
+          loK = k
+        }
+        k++
         continue
       }
       st[0] = s0
@@ -122,13 +152,29 @@ export class FastNormalGenerator {
       s2 = st[2]!
       s3 = st[3]!
       if (v === v) {
-        out[k++] = v
+        out[k] = v
+        sum += v
+        if (v > hi) {
+          hi = v
+          hiK = k
+        }
+        if (v < lo) {
+          lo = v
+          loK = k
+        }
+        k++
       }
     }
     st[0] = s0
     st[1] = s1
     st[2] = s2
     st[3] = s3
+    const f = this.filled
+    f.start = start
+    f.end = end
+    f.sum = sum
+    f.hiK = hiK
+    f.loK = loK
   }
 
   /** The rejection steps of a sample whose fast test failed: the value, or NaN (rejected; draw anew). */
@@ -146,3 +192,8 @@ export class FastNormalGenerator {
     }
   }
 }
+
+// Type feedback for all of `fill`, loop exit included, before V8 optimizes it: the first real call
+// is long enough for on-stack replacement to compile the loop before the code after it ever ran,
+// and that code then left through a deoptimization on every later call (a throwaway generator).
+new FastNormalGenerator(1).fill(new Float64Array(64))

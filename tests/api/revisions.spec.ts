@@ -186,7 +186,7 @@ describe('revisions with results from an evaluation', () => {
       [{ area: 11 }, 'weights.area', 'must be a number from 0 to 10'],
       [{ glitch: -1 }, 'weights.glitch', 'must be a number from 0 to 10'],
       [{ power: 'high' }, 'weights.power', 'must be a number from 0 to 10'],
-      [{ beauty: 2 }, 'weights', 'beauty'],
+      [{ beauty: 2 }, 'weights.beauty', 'beauty'],
       [zero, 'weights', 'at least one weight must be above 0']
     ]
     for (const [weights, path, words] of cases) {

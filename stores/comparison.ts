@@ -5,6 +5,7 @@ import type { EvaluateOutputWithFindings, Finding } from '#shared/findings/index
 import { DEFAULT_WEIGHTS } from '#shared/findings/weights'
 import type { RankingWeights } from '#shared/findings/weights'
 import { canonicalJson } from '#shared/utils/revisionDiff'
+import { useStudyStore } from './study'
 
 /** Which result the Candidates area shows. */
 export type ResultSource = 'live' | 'monte-carlo' | 'saved'
@@ -13,18 +14,6 @@ type Inputs = Record<'spec' | 'process' | 'options', Record<string, unknown>>
 type FieldIssue = { path: string, message: string }
 /** An evaluation as the Candidates area reads it: findings, ranking and recommendation under the study's weights. */
 export type ShownResult = EvaluateOutputWithFindings & { recommendedId: string | null, spec: Record<string, unknown>, options: Record<string, unknown> }
-
-const WEIGHTS_KEY = (studyId: number) => `rw:weights:${studyId}`
-
-function storedWeights(studyId: number): RankingWeights {
-  if (typeof localStorage === 'undefined') return { ...DEFAULT_WEIGHTS }
-  try {
-    const raw = JSON.parse(localStorage.getItem(WEIGHTS_KEY(studyId)) ?? 'null') as Partial<RankingWeights> | null
-    return { ...DEFAULT_WEIGHTS, ...raw }
-  } catch {
-    return { ...DEFAULT_WEIGHTS }
-  }
-}
 
 /** Re-ranks an output under other weights (no rules run); an output without findings is ranked on none. */
 function reranked(out: EvaluateOutput, weights: RankingWeights): ShownResult | null {
@@ -38,8 +27,8 @@ function reranked(out: EvaluateOutput, weights: RankingWeights): ShownResult | n
 
 /**
  * The comparison in the study workspace: the live analytic preview (a Web Worker, debounced, newest
- * answer only), the Monte Carlo job on the server, the study's ranking weights and which result is
- * shown. `evaluationId` is the finished Monte Carlo job computed for exactly the current inputs
+ * answer only), the Monte Carlo job on the server, the ranking under the study's weights (kept by
+ * the study store, saved with each revision) and which result is shown. `evaluationId` is the finished Monte Carlo job computed for exactly the current inputs
  * (null otherwise): pass it to the study store's `save(note, evaluationId)`.
  */
 export const useComparisonStore = defineStore('comparison', () => {
@@ -51,7 +40,9 @@ export const useComparisonStore = defineStore('comparison', () => {
   const saved = shallowRef<EvaluateOutput | null>(null)
   const savedKey = ref<string | null>(null)
   const source = ref<ResultSource>('live')
-  const weights = ref<RankingWeights>({ ...DEFAULT_WEIGHTS })
+  // the weights belong to the study record (saved with each revision): the study store holds them
+  const study = useStudyStore()
+  const weights = computed<RankingWeights>(() => study.weights ?? DEFAULT_WEIGHTS)
 
   const monteCarloResult = computed(() => mc.result.value)
   const monteCarloCurrent = computed(() => mc.result.value !== null && mc.inputsKey.value === inputsKey.value)
@@ -67,12 +58,11 @@ export const useComparisonStore = defineStore('comparison', () => {
   })
   const shown = computed(() => (base.value ? reranked(base.value, weights.value) : null))
 
-  /** Opens a study's comparison (clears another study's job and loads its weights). */
+  /** Opens a study's comparison (clears another study's job). */
   function open(id: number, savedResults: EvaluateOutput | null, savedInputs: Inputs | null) {
     if (studyId.value !== id) {
       mc.clear()
       studyId.value = id
-      weights.value = storedWeights(id)
       source.value = 'live'
     }
     setSaved(savedResults, savedInputs)
@@ -103,9 +93,9 @@ export const useComparisonStore = defineStore('comparison', () => {
     await mc.start(inputs.value, inputsKey.value)
   }
 
+  /** Sets the study's ranking weights (the study becomes unsaved until the next revision keeps them). */
   function setWeights(next: RankingWeights) {
-    weights.value = { ...next }
-    if (studyId.value !== null && typeof localStorage !== 'undefined') localStorage.setItem(WEIGHTS_KEY(studyId.value), JSON.stringify(next))
+    study.setWeights(next)
   }
 
   function show(next: ResultSource) {

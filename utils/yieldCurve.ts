@@ -1,24 +1,27 @@
-import { normalUpperTail, twoSidedFactor } from '#shared/core/stats/normal'
-
 /** Smallest yield loss considered (a loss below one in 10^12 is taken as that). */
 export const LOSS_FLOOR = 1e-12
 
-/** The equivalent two-sided Gaussian margin, in σ, of a yield: Y = 2Φ(z) − 1. */
-export function equivalentMargin(yieldValue: number): number {
-  return twoSidedFactor(Math.min(Math.max(yieldValue, 1e-9), 1 - LOSS_FLOOR))
+/** The engine's analytic yield against unit area of one candidate (evaluate output: linearity.yieldAgainstArea). */
+export interface YieldAreaCurve { unitAreaUm2: number[], yield: number[] }
+
+/** Yield loss (1 − yield) as plotted, floored at LOSS_FLOOR. */
+export function yieldLoss(y: number): number {
+  return Math.max(LOSS_FLOOR, 1 - y)
 }
 
 /**
- * Yield loss (1 − yield) at another unit area by Pelgrom's area law (mismatch σ ∝ 1/√area): the
- * candidate's own analytic yield at its sized area A0 is read as a margin z0, z(A) = z0·√(A/A0),
- * and the loss is 2·Q(z). A first-order estimate for the chart only; the table's yield is the engine's.
+ * The unit area at which the engine's curve reaches the target yield: between the two
+ * neighbouring areas the loss is interpolated linearly in log(loss) against log(area) (the
+ * curve is smooth there); null when no area on the curve reaches the target.
  */
-export function lossAtArea(a0Um2: number, y0: number, aUm2: number): number {
-  return Math.max(LOSS_FLOOR, 2 * normalUpperTail(equivalentMargin(y0) * Math.sqrt(aUm2 / a0Um2)))
-}
-
-/** The unit area at which the same estimate reaches the target yield. */
-export function areaForYield(a0Um2: number, y0: number, target: number): number {
-  const z0 = equivalentMargin(y0)
-  return z0 > 0 ? a0Um2 * (equivalentMargin(target) / z0) ** 2 : Infinity
+export function areaForTarget(curve: YieldAreaCurve, target: number): number | null {
+  const { unitAreaUm2: a, yield: y } = curve
+  const i = y.findIndex(v => v >= target)
+  if (i < 0) return null
+  if (i === 0) return a[0]!
+  const l0 = Math.log(yieldLoss(y[i - 1]!))
+  const l1 = Math.log(yieldLoss(y[i]!))
+  const lt = Math.log(yieldLoss(target))
+  const t = l1 === l0 ? 1 : (lt - l0) / (l1 - l0)
+  return Math.exp(Math.log(a[i - 1]!) + t * (Math.log(a[i]!) - Math.log(a[i - 1]!)))
 }

@@ -1,4 +1,5 @@
 import type { EvaluateOptions, EvaluateOutput, EvaluateProcess, EvaluateSpec } from '../core/contract/evaluate'
+import type { RankingWeights } from '../findings/weights'
 
 /** One row of a study's History: who saved which revision, and whether it carries results. */
 export interface RevisionSummaryDto {
@@ -18,6 +19,8 @@ export interface RevisionDto extends RevisionSummaryDto {
   options: EvaluateOptions
   evaluationId: number | null
   results: EvaluateOutput | null
+  /** the ranking weights saved with the revision; null before weights were kept (the defaults apply) */
+  weights: RankingWeights | null
 }
 
 /** One changed input field between two revisions. */

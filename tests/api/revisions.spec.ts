@@ -162,4 +162,39 @@ describe('revisions with results from an evaluation', () => {
     }
     expect(await revisionCount()).toBe(before)
   })
+
+  it('keeps the ranking weights with the revision it saves, and the defaults when none are sent', async () => {
+    const head = (await api<StudyDto>(`/api/studies/${studyId}`, { cookie: engineer })).body.version
+    const weights = { area: 6, yieldMargin: 0, glitch: 2.5, referenceLoad: 1, settlingMargin: 0, power: 0, complexity: 4 }
+    const saved = await save({ baseVersion: head, spec: SPEC, process: PROCESS, options: OPTIONS, weights })
+    expect(saved.status).toBe(201)
+    expect(saved.body.weights).toEqual(weights)
+    const read = await api<RevisionDto>(`/api/studies/${studyId}/revisions/${saved.body.number}`, { cookie: manager })
+    expect(read.body.weights).toEqual(weights)
+    // a partial set is completed with the defaults (shared/findings/weights.ts: area 3, yield margin 2, the rest 1)
+    const partial = await save({ baseVersion: saved.body.number, spec: SPEC, process: PROCESS, options: OPTIONS, weights: { glitch: 5 } })
+    expect(partial.body.weights).toEqual({ area: 3, yieldMargin: 2, glitch: 5, referenceLoad: 1, settlingMargin: 1, power: 1, complexity: 1 })
+    const none = await save({ baseVersion: partial.body.number, spec: SPEC, process: PROCESS, options: OPTIONS })
+    expect(none.body.weights).toEqual({ area: 3, yieldMargin: 2, glitch: 1, referenceLoad: 1, settlingMargin: 1, power: 1, complexity: 1 })
+  })
+
+  it('refuses weights out of range, unknown criteria or all zero with a field-named 400, and writes nothing', async () => {
+    const head = (await api<StudyDto>(`/api/studies/${studyId}`, { cookie: engineer })).body.version
+    const before = await revisionCount()
+    const zero = { area: 0, yieldMargin: 0, glitch: 0, referenceLoad: 0, settlingMargin: 0, power: 0, complexity: 0 }
+    const cases: Array<[unknown, string, string]> = [
+      [{ area: 11 }, 'weights.area', 'must be a number from 0 to 10'],
+      [{ glitch: -1 }, 'weights.glitch', 'must be a number from 0 to 10'],
+      [{ power: 'high' }, 'weights.power', 'must be a number from 0 to 10'],
+      [{ beauty: 2 }, 'weights.beauty', 'beauty'],
+      [zero, 'weights', 'at least one weight must be above 0']
+    ]
+    for (const [weights, path, words] of cases) {
+      const r = await save({ baseVersion: head, spec: SPEC, process: PROCESS, options: OPTIONS, weights })
+      expect(r.status).toBe(400)
+      expect(r.body.data.issues.map(i => i.path)).toContain(path)
+      expect(r.body.message).toContain(words)
+    }
+    expect(await revisionCount()).toBe(before)
+  })
 })

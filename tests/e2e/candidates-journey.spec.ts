@@ -53,6 +53,13 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     await expect.poll(() => page.getByTestId('chart-inl-summary').textContent()).toContain('Widest envelope')
     await page.locator('[data-testid="chart-inl"] .apexcharts-canvas').waitFor()
     await page.screenshot({ path: `${SHOTS}/candidates-monte-carlo-1280.png`, fullPage: true })
+    // The per-code charts come from the engine: the DNL envelope of sampled circuits after the run, the analytic yield curve with the MC dot.
+    await expect.poll(() => page.getByTestId('chart-dnl-summary').textContent()).toContain('light bands: Monte Carlo envelope')
+    expect(await page.getByTestId('chart-yield-summary').textContent()).toContain('Dots are the Monte Carlo yield')
+    for (const id of ['chart-dnl', 'chart-transfer', 'chart-yield']) {
+      await page.locator(`[data-testid="${id}"] .apexcharts-canvas`).waitFor()
+      await page.getByTestId(id).screenshot({ path: `${SHOTS}/${id}-1280.png` })
+    }
     await expectAccessible(page)
 
     await page.getByLabel('What changed').fill('Glitch limit relaxed to 20 nV·s')
@@ -72,7 +79,32 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     await page.getByLabel('with revision').selectOption('3')
     await page.getByTestId('compare-revisions').click()
     await expect.poll(() => page.getByTestId('revision-compare').textContent()).toContain('INL target')
+    // Ranking weights belong to the study record: a change makes the study unsaved, the revision keeps it.
+    await page.locator('#weight-glitch').fill('6')
+    await expect.poll(() => page.getByTestId('save-state').textContent()).toContain('nsaved')
+    await page.getByRole('button', { name: 'Save revision' }).click()
+    await expect.poll(() => page.getByTestId('study-version').textContent()).toContain('revision 4')
+    await page.reload()
+    await expect.poll(() => page.locator('#weight-glitch').inputValue(), { timeout: 20_000 }).toBe('6')
     await page.context().close()
+  })
+
+  it('opens a finding\'s handbook section, readable at 1280 and 390 px', async () => {
+    const page = await signedIn(DEMO.architect, studyUrl)
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
+    const link = page.locator('[data-basis="handbook"] a').first()
+    const section = await link.getAttribute('data-section')
+    await link.click()
+    await page.waitForURL(/\/handbook#section-/)
+    await page.locator(`section[data-section="${section}"]`).waitFor()
+    await page.screenshot({ path: `${SHOTS}/handbook-1280.png` })
+    await expectAccessible(page)
+    await page.context().close()
+    const narrow = await signedIn(DEMO.engineer, '/handbook', 390)
+    await narrow.getByTestId('handbook').waitFor()
+    await narrow.screenshot({ path: `${SHOTS}/handbook-390.png` })
+    await expectAccessible(narrow)
+    await narrow.context().close()
   })
 
   it('cancels a long Monte Carlo run and keeps the live comparison', async () => {
@@ -94,6 +126,10 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')
     await page.locator('[data-testid="chart-glitch"] .apexcharts-canvas').waitFor()
     await page.screenshot({ path: `${SHOTS}/candidates-390.png`, fullPage: true })
+    for (const id of ['chart-dnl', 'chart-transfer', 'chart-yield']) {
+      await page.locator(`[data-testid="${id}"] .apexcharts-canvas`).waitFor()
+      await page.getByTestId(id).screenshot({ path: `${SHOTS}/${id}-390.png` })
+    }
     await expectAccessible(page)
     await page.context().close()
   })

@@ -25,6 +25,10 @@ import type { CandidateContext } from './context'
 import { circuitShapeOf, twoStageUnits } from './context'
 import type { GlitchSummary } from './glitch-summary'
 import { summariseGlitch } from './glitch-summary'
+import type { DnlEnvelope } from './series-mc'
+import type { NominalCodeSeries } from './series-nominal'
+import { nominalCodeSeries } from './series-nominal'
+import type { YieldAgainstArea } from './series-yield'
 
 /** Analytic results of one candidate (SI units). */
 export interface AnalyticCandidate {
@@ -38,6 +42,11 @@ export interface AnalyticCandidate {
   noise: { noiseVrms: number, noiseKtcVrms: number | null, quantNoiseVrms: number }
   glitch: GlitchSummary
   series: { irefA: DecimatedSeries, rinOhm: DecimatedSeries, routOhm: DecimatedSeries }
+  /** nominal transfer error, INL and DNL per code (series-nominal.ts) */
+  perCode: NominalCodeSeries
+  /** added by the analytic task (series-mc.ts, series-yield.ts), not by explain mode */
+  dnlEnvelope?: DnlEnvelope | null
+  yieldAgainstArea?: YieldAgainstArea
 }
 
 function areaOf(c: CandidateContext, counts: ElementCounts, input: EvaluateInput, trace?: Trace): AnalyticCandidate['area'] {
@@ -159,7 +168,8 @@ export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trac
       irefA: decimateSeries(sol.irefA, options.envelopePoints),
       rinOhm: decimateSeries(inputResistance(sol.irefA, spec.vrefV), options.envelopePoints),
       routOhm: decimateSeries(sol.routOhm, options.envelopePoints)
-    }
+    },
+    perCode: nominalCodeSeries(sol.value, voltageOut ? vLsb : vLsb / c.sizing.unitOhm, options.inlDefinition, options.envelopePoints)
   }
   if (trace) {
     traceSolved(result, input, trace)

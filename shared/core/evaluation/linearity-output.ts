@@ -53,12 +53,15 @@ export function monteCarloSection(t: McTally | null, input: EvaluateInput) {
   }
 }
 
-/** The linearity section (analytic, systematic and Monte Carlo). */
+/** The linearity section (analytic, systematic and Monte Carlo, and the per-code and per-area chart series). */
 export function linearitySection(a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
   return {
     definition: input.options.inlDefinition,
     analytic: a.analytic,
     systematic: a.systematic,
-    monteCarlo: monteCarloSection(t, input)
+    monteCarlo: monteCarloSection(t, input),
+    perCode: a.perCode,
+    dnlEnvelope: a.dnlEnvelope ?? null,
+    yieldAgainstArea: a.yieldAgainstArea ?? null
   }
 }

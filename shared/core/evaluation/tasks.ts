@@ -10,6 +10,8 @@ import { runMonteCarloChunk } from '../stats/montecarlo'
 import type { AnalyticCandidate } from './analytic'
 import { analyseCandidate } from './analytic'
 import { candidateContexts } from './context'
+import { sampledDnlEnvelope } from './series-mc'
+import { yieldAgainstArea } from './series-yield'
 
 /** Trials per Monte Carlo task (fixed: part of what makes a seed reproducible). */
 export const MC_CHUNK_TRIALS = 250
@@ -41,11 +43,13 @@ export function planTasks(input: EvaluateInput): EvaluationTask[] {
 export function runTask(task: EvaluationTask): EvaluationPart {
   const contexts = candidateContexts(task.input)
   if (task.kind === 'analytic') {
-    const c = contexts.find(x => x.shape.id === task.candidateId)
+    const index = contexts.findIndex(x => x.shape.id === task.candidateId)
+    const c = contexts[index]
     if (!c) {
       throw new Error(`unknown candidate ${task.candidateId}`)
     }
-    return { kind: 'analytic', candidate: analyseCandidate(c, task.input) }
+    const candidate = analyseCandidate(c, task.input)
+    return { kind: 'analytic', candidate: { ...candidate, dnlEnvelope: sampledDnlEnvelope(c, index, task.input), yieldAgainstArea: yieldAgainstArea(c, task.input) } }
   }
   const { spec, options } = task.input
   const samplers = contexts.map(c => createSampler(c.shape, c.sampler))

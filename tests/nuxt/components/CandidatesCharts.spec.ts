@@ -1,6 +1,7 @@
 import { mountSuspended } from '@nuxt/test-utils/runtime'
 import { beforeAll, describe, expect, it } from 'vitest'
 import CandidatesCharts from '../../../components/candidates/CandidatesCharts.vue'
+import { candidateLabel } from '../../../utils/candidateLabel'
 import { candidateHues } from '../../../utils/chartPalette'
 import { engineOutput, SPEC } from './fixtures'
 
@@ -41,5 +42,55 @@ describe('CandidatesCharts', () => {
     expect(w.findAll('[data-testid="chart-sweep"] tbody tr')).toHaveLength(11)
     const worst = props.candidates.find(c => c.id === props.order[0])!
     expect(w.get('[data-testid="chart-glitch"] tbody').text()).toContain(`${worst.metrics.glitchWorstFromCode} → ${worst.metrics.glitchWorstToCode}`)
+  })
+})
+
+describe('per-code and yield charts from the engine output', () => {
+  const typed = { apexchart: { props: ['series', 'options', 'type'], template: '<div class="chart-stub" :data-series="series.length" :data-types="series.map(s => s.type).join(\',\')" />' } }
+  const mountTyped = () => mountSuspended(CandidatesCharts, { props, global: { stubs: typed } })
+  const shown = () => props.candidates.filter(c => props.order.slice(0, 5).includes(c.id) || c.id === props.recommendedId)
+  const m = (c: Out['candidates'][number], k: string) => (c.metrics as Record<string, unknown>)[k] as number
+
+  it('DNL: the nominal band\'s extremes are the engine\'s systematic DNL, and a 200-trial run adds an envelope of 32 sampled circuits per candidate', async () => {
+    const w = await mountTyped()
+    const rows = w.findAll('[data-testid="chart-dnl"] tbody tr')
+    expect(rows).toHaveLength(shown().length)
+    for (const c of shown()) {
+      const row = rows.find(r => r.get('th').text() === candidateLabel(c))!
+      const cells = row.findAll('td').map(td => td.text())
+      // derived: |DNL| max over all codes is what the engine reports as systematicDnlLsb
+      const worst = Math.max(Math.abs(Number(cells[0])), Math.abs(Number(cells[2])))
+      expect(worst).toBeCloseTo(m(c, 'systematicDnlLsb'), 3)
+      expect(cells[6]).toBe('32')
+      expect(Number(cells[4])).toBeLessThan(Number(cells[5]))
+    }
+    // one envelope band and one nominal band per candidate
+    expect(w.get('[data-testid="chart-dnl"] .chart-stub').attributes('data-series')).toBe(String(2 * shown().length))
+  })
+
+  it('transfer error / INL: switches quantity and shows the engine\'s nominal INL extremes', async () => {
+    const w = await mountTyped()
+    const c = shown()[0]!
+    const inlCells = () => w.findAll('[data-testid="chart-transfer"] tbody tr').find(r => r.get('th').text() === candidateLabel(c))!.findAll('td').map(td => Number(td.text()))
+    const inl = inlCells()
+    expect(Math.max(Math.abs(inl[0]!), Math.abs(inl[2]!))).toBeCloseTo(m(c, 'systematicInlLsb'), 3)
+    await w.get('[data-testid="transfer-quantity"]').setValue('transferErrorLsb')
+    expect(w.get('[data-testid="chart-transfer"] caption').text()).toContain('transfer error')
+    expect(w.get('[data-testid="chart-transfer"] figcaption').text()).toContain('ideal k·LSB')
+  })
+
+  it('yield against area: the engine\'s analytic curve (its value at the drawn unit is the analytic yield) with the Monte Carlo yield as a dot', async () => {
+    const w = await mountTyped()
+    expect(w.get('[data-testid="chart-yield-summary"]').text()).toContain('Analytic (first-order) model')
+    const types = w.get('[data-testid="chart-yield"] .chart-stub').attributes('data-types')!.split(',')
+    expect(types.filter(t => t === 'line')).toHaveLength(shown().length)
+    expect(types.filter(t => t === 'scatter')).toHaveLength(shown().length)
+    for (const c of shown()) {
+      const cells = w.findAll('[data-testid="chart-yield"] tbody tr').find(r => r.get('th').text() === candidateLabel(c))!.findAll('td').map(td => td.text())
+      // the analytic product the engine uses (yield.analytic-product, monotonicity required in SPEC)
+      const analytic = m(c, 'inlYieldAnalytic') * m(c, 'dnlYieldAnalytic') * m(c, 'monotonicYieldAnalytic')
+      expect(Number(cells[1]!.replace(' %', ''))).toBeCloseTo(analytic * 100, 4)
+      expect(Number(cells[2]!.replace(' %', ''))).toBeCloseTo(m(c, 'yield') * 100, 2)
+    }
   })
 })

@@ -11,15 +11,15 @@ const SPEC = { bits: 12, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 10e-12
 const PROCESS = { sheetOhmPerSq: 300, matchingPctUm: 0.8, matchingConvention: 'pair', unitOhm: 'auto', switchOhm: 80, switchSkewS: 80e-12, switchChargeC: 2e-15, switchAreaUm2: 6, gateAreaUm2: 3, layoutOverhead: 2, minWidthUm: 0.6, minLengthUm: 1.2, twoRConstruction: 'two-units' }
 const OPTIONS = { topologies: ['string', 'segmented'], trials: 500, seed: 7, inlDefinition: 'endpoint', envelopePoints: 256, confidence: 0.95 }
 
-const server = { version: 2, spec: { ...SPEC } as Record<string, unknown>, posted: [] as Record<string, unknown>[], refuseWith: 0 }
+const server = { version: 2, spec: { ...SPEC } as Record<string, unknown>, posted: [] as Record<string, unknown>[], refuseWith: 0, weights: null as unknown }
 
-function revision(number: number, spec = server.spec): RevisionDto {
-  return { number, studyId: 7, engineVersion: 'test', hasResults: false, note: null, author: { id: 1, name: 'Test' }, createdAt: new Date(0).toISOString(), spec, process: PROCESS, options: OPTIONS, evaluationId: null, results: null } as unknown as RevisionDto
+function revision(number: number, spec = server.spec, weights: unknown = server.weights): RevisionDto {
+  return { number, studyId: 7, engineVersion: 'test', hasResults: false, note: null, author: { id: 1, name: 'Test' }, createdAt: new Date(0).toISOString(), spec, process: PROCESS, options: OPTIONS, evaluationId: null, results: null, weights } as unknown as RevisionDto
 }
 const study = (): StudyDto => ({ id: 7, title: 'Store test', blockName: null, status: 'draft', spec: server.spec, version: server.version, owner: { id: 1, name: 'Test' }, createdAt: '', updatedAt: '' } as unknown as StudyDto)
 
 registerEndpoint('/api/studies/7', () => study())
-registerEndpoint('/api/studies/7/revisions/2', () => revision(2, SPEC))
+registerEndpoint('/api/studies/7/revisions/2', () => revision(2, SPEC, server.weights))
 registerEndpoint('/api/studies/7/revisions/3', () => revision(3))
 registerEndpoint('/api/studies/7/revisions', {
   method: 'POST',
@@ -29,13 +29,14 @@ registerEndpoint('/api/studies/7/revisions', {
     if (server.refuseWith) throw createError({ statusCode: 409, statusMessage: 'Conflict', data: { message: 'baseVersion: stale', currentVersion: server.refuseWith } })
     server.version += 1
     server.spec = body.spec
-    return revision(server.version, body.spec)
+    server.weights = body.weights ?? null
+    return revision(server.version, body.spec, body.weights)
   }
 })
 
 beforeEach(() => {
   setActivePinia(createPinia())
-  Object.assign(server, { version: 2, spec: { ...SPEC }, posted: [], refuseWith: 0 })
+  Object.assign(server, { version: 2, spec: { ...SPEC }, posted: [], refuseWith: 0, weights: null })
 })
 
 describe('study store', () => {
@@ -87,5 +88,32 @@ describe('study store', () => {
     expect(store.entries.spec.inlTargetLsb).toBe('1 LSB')
     expect(store.entries.spec.dnlTargetLsb).toBe('0.25 LSB')
     expect(store.dirty).toBe(true)
+  })
+
+  it('loads the open revision\'s ranking weights, marks the study unsaved when they change, and saves them with the next revision', async () => {
+    const mine = { area: 5, yieldMargin: 1, glitch: 0, referenceLoad: 2, settlingMargin: 1, power: 0, complexity: 3 }
+    server.weights = mine
+    const store = useStudyStore()
+    await store.load(7)
+    expect(store.weights).toEqual(mine)
+    expect(store.dirty).toBe(false)
+    store.setWeights({ ...mine, glitch: 4 })
+    expect(store.dirty).toBe(true)
+    await store.save('weights changed')
+    expect(server.posted.at(-1)!.weights).toEqual({ ...mine, glitch: 4 })
+    expect(store.dirty).toBe(false)
+    expect(store.savedWeights.glitch).toBe(4)
+    store.setWeights({ ...mine, glitch: 1 })
+    store.discard()
+    expect(store.weights.glitch).toBe(4)
+  })
+
+  it('starts from the default weights for a revision saved before weights were kept', async () => {
+    server.weights = null
+    const store = useStudyStore()
+    await store.load(7)
+    // the defaults of shared/findings/weights.ts (area 3, yield margin 2, the rest 1)
+    expect(store.weights).toEqual({ area: 3, yieldMargin: 2, glitch: 1, referenceLoad: 1, settlingMargin: 1, power: 1, complexity: 1 })
+    expect(store.dirty).toBe(false)
   })
 })

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { lineMargin } from '../../../utils/specLines'
-import { areaForYield, lossAtArea } from '../../../utils/yieldCurve'
+import { areaForTarget, yieldLoss } from '../../../utils/yieldCurve'
 
 describe('lineMargin', () => {
   it('is the headroom as a share of the limit, positive inside the spec', () => {
@@ -15,14 +15,20 @@ describe('lineMargin', () => {
   })
 })
 
-describe('yield against unit area', () => {
-  it('passes through the candidate\'s own yield at its sized area', () => {
-    expect(1 - lossAtArea(4, 0.997, 4)).toBeCloseTo(0.997, 9)
+describe('unit area for the target on the engine\'s yield curve', () => {
+  // 2Φ(z) − 1 at z = 2, 3, 4 (standard normal table): 0.9545, 0.9973, 0.999937; with σ ∝ 1/√area
+  // (Pelgrom) the margin z doubles when the area quadruples
+  const curve = { unitAreaUm2: [1, 2.25, 4], yield: [0.9545, 0.9973, 0.999937] }
+  it('returns a point of the curve exactly and the first area when it already meets the target', () => {
+    expect(areaForTarget(curve, 0.9973)).toBeCloseTo(2.25, 9)
+    expect(areaForTarget(curve, 0.9)).toBe(1)
   })
-
-  it('needs four times the area for twice the margin in σ (Pelgrom: σ ∝ 1/√area)', () => {
-    // 2Φ(z) − 1 = 0.9545 at z = 2 and 0.999937 at z = 4 (standard normal table)
-    expect(areaForYield(1, 0.9545, 0.999937)).toBeCloseTo(4, 1)
-    expect(1 - lossAtArea(1, 0.9545, 4)).toBeCloseTo(0.999937, 5)
+  it('interpolates log(loss) against log(area) in between, and says when no area reaches the target', () => {
+    const a = areaForTarget(curve, 0.999)!
+    // z = 3.2905 for 99.9 % (normal table) → area (3.2905/2)² = 2.707; log-log interpolation is first order: ±5 %
+    expect(a).toBeGreaterThan(2.25)
+    expect(Math.abs(a / 2.707 - 1)).toBeLessThan(0.05)
+    expect(areaForTarget(curve, 0.9999999)).toBeNull()
+    expect(yieldLoss(1)).toBe(1e-12)
   })
 })

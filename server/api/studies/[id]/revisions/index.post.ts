@@ -1,4 +1,5 @@
 import { ENGINE_VERSION } from '#shared/core/version'
+import { DEFAULT_WEIGHTS } from '#shared/findings/weights'
 import { revisionCreateSchema } from '#shared/schemas/revisions'
 import { idParamSchema } from '#shared/schemas/study'
 import { STUDY_EDITOR_ROLES } from '#shared/types/auth'
@@ -7,6 +8,7 @@ import type { RevisionDto } from '#shared/types/revisions'
 /**
  * Saves the next immutable revision of a study in one transaction. 409 (with the current version
  * in `data.currentVersion`) when `baseVersion` is not the study's version: someone saved first.
+ * The ranking weights are kept with the revision (the defaults when the body has none).
  */
 export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
@@ -24,7 +26,8 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
     await trx('study_revisions').insert({
       study_id: id, number: next, spec: JSON.stringify(body.spec), process: JSON.stringify(body.process), options: JSON.stringify(body.options),
       engine_version: evaluated?.engineVersion ?? ENGINE_VERSION, results: evaluated ? JSON.stringify(evaluated.results) : null,
-      evaluation_id: body.evaluationId ?? null, note: body.note || null, author_id: user.id
+      evaluation_id: body.evaluationId ?? null, note: body.note || null, author_id: user.id,
+      weights: JSON.stringify(body.weights ?? DEFAULT_WEIGHTS)
     })
     const summary = evaluated ? portfolioSummary(evaluated.results) : null
     await trx('studies').where({ id }).update({

@@ -60,7 +60,7 @@ describe('notes', () => {
     expect((await patch(as.manager, note.id, { version: 1, body: 'not yours' })).status).toBe(403)
     const edited = await patch(as.engineer, note.id, { version: 1, body: 'second words' })
     expect(edited.status).toBe(200)
-    expect(edited.body).toMatchObject({ version: 2, body: 'second words', bodyHtml: '<p>second words</p>' })
+    expect(edited.body).toMatchObject({ version: 2, body: 'second words', bodyHtml: '<p>second words</p>\n' })
     const stale = await patch(as.admin, note.id, { version: 1, body: 'admin on an old copy' })
     expect(stale.status).toBe(409)
     expect(stale.body.data.currentVersion).toBe(2)

@@ -55,7 +55,7 @@ function pdf(image: Buffer): Promise<Buffer> {
 
 function upload(data: Buffer | string, filename: string, cookie = as.engineer, id = noteId) {
   const form = new FormData()
-  form.append('file', new Blob([data]), filename)
+  form.append('file', new Blob([typeof data === 'string' ? data : new Uint8Array(data)]), filename)
   return api<NoteAttachmentDto & { message: string }>(`/api/notes/${id}/attachments`, { method: 'POST', cookie, body: form })
 }
 

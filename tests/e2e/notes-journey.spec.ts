@@ -9,6 +9,7 @@ import { caughtMail } from '../support/mail-catcher'
 const SHOTS = join(process.cwd(), 'tests/e2e/screenshots')
 // An 8-bit spec invented for the journey.
 const SPEC = { bits: 8, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 1e-12, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99, glitchLimitVs: 1e-10, powerBudgetW: 1e-3 }
+const PROCESS = { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }
 let browser: Browser
 let close: () => Promise<void>
 
@@ -23,7 +24,10 @@ afterAll(async () => {
 describe('notes journey', () => {
   it('an engineer notes a candidate mentioning an architect, who is mailed, replies and resolves it', async () => {
     const title = `Notes journey ${Date.now()}`
-    const created = await api<{ id: number }>('/api/studies', { method: 'POST', cookie: await signIn(DEMO.engineer), body: { title, spec: SPEC } })
+    const cookie = await signIn(DEMO.engineer)
+    const created = await api<{ id: number }>('/api/studies', { method: 'POST', cookie, body: { title, spec: SPEC } })
+    const saved = await api(`/api/studies/${created.body.id}/revisions`, { method: 'POST', cookie, body: { baseVersion: 0, spec: SPEC, process: PROCESS, options: { topologies: ['string', 'r2r-voltage', 'segmented'], trials: 200, seed: 1 } } })
+    expect(saved.status).toBe(201)
     const path = `/studies/${created.body.id}`
 
     const engineer = await signedInPage(browser, inject('baseUrl'), DEMO.engineer, path)

@@ -47,14 +47,26 @@ export const useNotesStore = defineStore('notes', () => {
     }
   }
 
-  /** Writes a note (a thread, or a reply when parentId is given) and uploads its files after it. */
+  /**
+   * Writes a note (a thread, or a reply when parentId is given) and uploads its files after it. A
+   * refused file does not undo the note: the note is kept and the error names the file.
+   */
   async function write(body: string, files: File[] = [], parentId?: number) {
-    return run(async () => {
+    const refused: string[] = []
+    const note = await run(async () => {
       const payload = parentId ? { body, parentId } : { body, anchor: anchor.value }
-      const note = await $fetch<NoteDto>(`/api/studies/${studyId.value}/notes`, { method: 'POST', body: payload })
-      for (const file of files) await upload(note.id, file)
-      return note
+      const saved = await $fetch<NoteDto>(`/api/studies/${studyId.value}/notes`, { method: 'POST', body: payload })
+      for (const file of files) {
+        try {
+          await upload(saved.id, file)
+        } catch (e) {
+          refused.push(`${file.name}: ${apiErrorMessage(e)}`)
+        }
+      }
+      return saved
     })
+    if (note && refused.length) error.value = `The note was saved, but not every file: ${refused.join('; ')}`
+    return note
   }
 
   function upload(noteId: number, file: File) {
@@ -66,9 +78,8 @@ export const useNotesStore = defineStore('notes', () => {
   const edit = (note: NoteDto, body: string) => run(() => $fetch<NoteDto>(`/api/notes/${note.id}`, { method: 'PATCH', body: { version: note.version, body } }))
   const remove = (note: NoteDto) => run(() => $fetch<null>(`/api/notes/${note.id}`, { method: 'DELETE' }))
   const setResolved = (note: NoteDto, resolved: boolean) => run(() => $fetch<NoteDto>(`/api/notes/${note.id}/${resolved ? 'resolve' : 'reopen'}`, { method: 'POST' }))
-  const attach = (note: NoteDto, file: File) => run(() => upload(note.id, file))
 
-  return { studyId, threads, anchor, error, focusRequest, openCounts, load, reload, aim, write, edit, remove, setResolved, attach }
+  return { studyId, threads, anchor, error, focusRequest, openCounts, load, reload, aim, write, edit, remove, setResolved }
 })
 
 if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useNotesStore, import.meta.hot))

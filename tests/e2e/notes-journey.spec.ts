@@ -45,6 +45,7 @@ describe('notes journey', () => {
     expect(await thread.locator('strong').textContent()).toBe('area')
     await expect.poll(() => engineer.locator(`[data-note-marker="${candidateId}"]`).getAttribute('aria-label')).toContain('1 open note')
     await engineer.getByTestId('study-notes').screenshot({ path: `${SHOTS}/notes-engineer-1280.png` })
+    await engineer.getByTestId('candidates-table').screenshot({ path: `${SHOTS}/notes-markers-1280.png` })
     await engineer.screenshot({ path: `${SHOTS}/notes-page-1280.png`, fullPage: true })
     await expectAccessible(engineer)
 
@@ -78,5 +79,5 @@ describe('notes journey', () => {
     await engineer.getByLabel('All').check()
     await expect.poll(() => engineer.locator('[data-thread]').first().getAttribute('data-resolved'), { timeout: 30_000 }).toBe('yes')
     await engineer.context().close()
-  })
+  }, 240_000)
 })

@@ -25,3 +25,15 @@ export function invitationMail(data: { teamName: string, inviterName: string, in
   const action = { label: 'Choose your password', url: data.url }
   return { subject: `You are invited to ${data.teamName} on Rungwise`, text: text(paragraphs, action), html: layout('Join your team on Rungwise', paragraphs, action) }
 }
+
+/** A member was mentioned in a note: who wrote it, where, and the first lines of it. */
+export function mentionMail(data: { recipientName: string, authorName: string, studyTitle: string, about: string, excerpt: string, url: string }): MailContent {
+  const excerpt = data.excerpt.length > 600 ? `${data.excerpt.slice(0, 600)}…` : data.excerpt
+  const paragraphs = [
+    `Hello ${data.recipientName},`,
+    `${data.authorName} mentioned you in a note on ${data.about} in “${data.studyTitle}”:`,
+    excerpt
+  ]
+  const action = { label: 'Open the note', url: data.url }
+  return { subject: `${data.authorName} mentioned you in “${data.studyTitle}”`, text: text(paragraphs, action), html: layout('You were mentioned in a note', paragraphs, action) }
+}

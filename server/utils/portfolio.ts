@@ -19,7 +19,9 @@ export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 
 export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit = q.pageSize, offset = (q.page - 1) * q.pageSize) {
   return portfolioBase(db, teamId, q)
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
-      's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count')
+      's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
+      // open notes: threads neither resolved nor deleted
+      db('notes as n').whereRaw('n.study_id = s.id').whereNull('n.parent_id').whereNull('n.resolved_at').whereNull('n.deleted_at').count('*').as('open_notes'))
     .orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
     .orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
     .limit(limit).offset(offset)
@@ -44,6 +46,7 @@ export function toPortfolioRow(row: Record<string, unknown>): PortfolioRow {
     failCount: row.summary_fail_count as number | null,
     meetingCount: row.summary_meeting_count as number | null,
     candidateCount: row.summary_candidate_count as number | null,
+    openNotes: Number(row.open_notes ?? 0),
     lastActivityAt: (row.updated_at as Date).toISOString()
   }
 }

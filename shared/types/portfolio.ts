@@ -17,6 +17,8 @@ export interface PortfolioRow {
   failCount: number | null
   meetingCount: number | null
   candidateCount: number | null
+  /** threads of notes neither resolved nor deleted */
+  openNotes: number
   lastActivityAt: string
 }
 

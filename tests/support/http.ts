@@ -10,15 +10,16 @@ export const DEMO = {
 
 export interface ApiResponse<T = unknown> { status: number, body: T, headers: Headers }
 
-/** A request to the test app server; `cookie` is the session cookie from signIn. */
+/** A request to the test app server; `cookie` is the session cookie from signIn; a FormData body goes as multipart. */
 export async function api<T = unknown>(path: string, init: { method?: string, body?: unknown, cookie?: string, headers?: Record<string, string> } = {}): Promise<ApiResponse<T>> {
   const headers: Record<string, string> = { accept: 'application/json', ...init.headers }
-  if (init.body !== undefined) headers['content-type'] = 'application/json'
+  const multipart = init.body instanceof FormData
+  if (init.body !== undefined && !multipart) headers['content-type'] = 'application/json'
   if (init.cookie) headers.cookie = init.cookie
   const res = await fetch(`${inject('baseUrl')}${path}`, {
     method: init.method ?? 'GET',
     headers,
-    body: init.body === undefined ? undefined : typeof init.body === 'string' ? init.body : JSON.stringify(init.body),
+    body: init.body === undefined ? undefined : multipart || typeof init.body === 'string' ? init.body as BodyInit : JSON.stringify(init.body),
     redirect: 'manual'
   })
   const text = await res.text()

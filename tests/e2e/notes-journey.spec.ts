@@ -10,6 +10,8 @@ const SHOTS = join(process.cwd(), 'tests/e2e/screenshots')
 // An 8-bit spec invented for the journey.
 const SPEC = { bits: 8, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 1e-12, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99, glitchLimitVs: 1e-10, powerBudgetW: 1e-3 }
 const PROCESS = { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }
+/** polls wait this long: a write and its reload can take seconds on a busy shared machine */
+const WAIT = { timeout: 30_000 }
 let browser: Browser
 let close: () => Promise<void>
 
@@ -41,9 +43,9 @@ describe('notes journey', () => {
     await box.pressSequentially('? See **area**.')
     await engineer.getByRole('button', { name: 'Add note' }).click()
     const thread = engineer.locator('[data-thread]').first()
-    await expect.poll(() => thread.textContent()).toContain('Is this small enough for the budget, @architect ? See area.')
+    await expect.poll(() => thread.textContent(), WAIT).toContain('Is this small enough for the budget, @architect ? See area.')
     expect(await thread.locator('strong').textContent()).toBe('area')
-    await expect.poll(() => engineer.locator(`[data-note-marker="${candidateId}"]`).getAttribute('aria-label')).toContain('1 open note')
+    await expect.poll(() => engineer.locator(`[data-note-marker="${candidateId}"]`).getAttribute('aria-label'), WAIT).toContain('1 open note')
     await engineer.getByTestId('study-notes').screenshot({ path: `${SHOTS}/notes-engineer-1280.png` })
     await engineer.getByTestId('candidates-table').screenshot({ path: `${SHOTS}/notes-markers-1280.png` })
     await engineer.screenshot({ path: `${SHOTS}/notes-page-1280.png`, fullPage: true })
@@ -64,11 +66,11 @@ describe('notes journey', () => {
     await seen.getByRole('button', { name: 'Reply' }).click()
     await seen.getByLabel('Reply').fill('It is, with 20 % to spare; keep it.')
     await seen.getByRole('button', { name: 'Reply', exact: true }).click()
-    await expect.poll(() => seen.textContent()).toContain('with 20 % to spare')
+    await expect.poll(() => seen.textContent(), WAIT).toContain('with 20 % to spare')
     await seen.getByRole('button', { name: 'Resolve' }).click()
-    await expect.poll(() => architect.getByTestId('notes-empty').textContent()).toContain('No open notes')
+    await expect.poll(() => architect.getByTestId('notes-empty').textContent(), WAIT).toContain('No open notes')
     await architect.getByLabel('Resolved').check()
-    await expect.poll(() => architect.locator('[data-thread]').first().textContent()).toContain('Resolved by Tomas Reyne')
+    await expect.poll(() => architect.locator('[data-thread]').first().textContent(), WAIT).toContain('Resolved by Tomas Reyne')
     await architect.getByTestId('study-notes').screenshot({ path: `${SHOTS}/notes-architect-390.png` })
     await expectAccessible(architect)
     await architect.context().close()
@@ -79,5 +81,5 @@ describe('notes journey', () => {
     await engineer.getByLabel('All').check()
     await expect.poll(() => engineer.locator('[data-thread]').first().getAttribute('data-resolved'), { timeout: 30_000 }).toBe('yes')
     await engineer.context().close()
-  }, 240_000)
+  }, 300_000)
 })

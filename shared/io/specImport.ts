@@ -57,7 +57,7 @@ function cellValue(column: ImportColumn, text: string): { ok: true, value: unkno
     if (['no', 'false', '0'].includes(t)) return { ok: true, value: false }
     return { ok: false, message: `must be yes or no (got "${text}")` }
   }
-  if (def?.kind === 'multi') return readField(def, text.split(/[;|]/).map(s => s.trim()).filter(Boolean))
+  if (def?.kind === 'multi') return readField(def, text.split(/[;|\s]+/).map(s => s.trim()).filter(Boolean))
   if (def?.kind === 'choice') return readField(def, def.choices.find(c => c.label.toLowerCase() === text.toLowerCase())?.value ?? text)
   if (def) return readField(def, text)
   // a field outside the catalogue: the contract's own number or word

@@ -13,7 +13,7 @@ export default defineApiHandler(async (event): Promise<StudyDocument> => {
     inputs: { spec: r.spec, process: r.process, options: r.options }
   }))
   if (revisions.length === 0) {
-    // Before the first save a study is its spec only; the document still imports (the engine's defaults fill the rest).
+    // Before the first save a study has a spec but no process or options: nothing that imports as a study.
     throw studyNotReady('the study has no saved revision yet; save revision 1 to export it')
   }
   sendAttachment(event, 'application/json; charset=utf-8', `${study.title}.rungwise.json`)

@@ -27,7 +27,7 @@ export default defineApiHandler(async (event): Promise<{ studies: { id: number, 
         study_id: studyId, number: i + 1, spec: JSON.stringify(r.inputs.spec), process: JSON.stringify(r.inputs.process), options: JSON.stringify(r.inputs.options),
         engine_version: i + 1 === head && results ? results.engineVersion : r.engineVersion,
         results: i + 1 === head && results ? JSON.stringify(results.output) : null,
-        note: (r.note ?? (i === 0 ? source : null))?.slice(0, 500) ?? null, author_id: user.id
+        note: preview.document ? r.note : source.slice(0, 500), author_id: user.id
       })))
       await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'study_imported', targetType: 'study', targetId: studyId!, detail: { source: body.fileName ?? null, line: row.line, revisions: head } }, trx)
       created.push({ id: studyId!, title: row.title })

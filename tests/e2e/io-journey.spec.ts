@@ -54,6 +54,7 @@ describe('in and out', () => {
       await page.getByTestId('study-io').scrollIntoViewIfNeeded()
       await expectAccessible(page)
       await page.screenshot({ path: `${SHOTS}/study-io-${width}.png`, fullPage: true })
+      await page.getByTestId('study-io').screenshot({ path: `${SHOTS}/study-io-area-${width}.png` })
       await page.context().close()
     })
   }

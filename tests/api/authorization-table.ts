@@ -1,4 +1,5 @@
 import type { Knex } from 'knex'
+import { IO_ROWS } from './authorization-io'
 import { LIBRARY_ROWS } from './authorization-library'
 import { NOTE_ROWS } from './authorization-notes'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
@@ -76,6 +77,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   ...RULE_PACK_ROWS,
   ...LIBRARY_ROWS,
   ...NOTE_ROWS,
+  ...IO_ROWS,
   { route: 'GET /api/team', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
   {
     route: 'POST /api/team/invitations',

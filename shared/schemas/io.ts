@@ -1,0 +1,37 @@
+import { z } from 'zod'
+import { MAX_SAMPLE_INDEX } from '../core/contract/netlist'
+import { intInRange, says } from '../core/contract/fields'
+import { MAX_BENCH_CHARS } from '../io/benchCsv'
+
+/** Most characters of an import file (200 CSV lines or a study document with its results). */
+export const MAX_IMPORT_CHARS = 8 * 2 ** 20
+
+const fileName = z.string(says('must be a file name of at most 255 characters')).trim()
+  .max(255, says('must be a file name of at most 255 characters')).regex(/^[^\p{Cc}/\\]*$/u, says('must be a file name without slashes or control characters'))
+
+/** Body of `POST /api/studies/import` and its preview: the file's text as uploaded or pasted. */
+export const importBodySchema = z.strictObject({
+  text: z.string(says(`must be the file's text, at most ${MAX_IMPORT_CHARS} characters`)).min(1, says('must not be empty; paste the CSV or JSON, or choose a file'))
+    .max(MAX_IMPORT_CHARS, says(`must be the file's text, at most ${MAX_IMPORT_CHARS} characters`)),
+  format: z.enum(['csv', 'json', 'auto'], says('must be "csv", "json" or "auto"')).default('auto'),
+  fileName: fileName.optional()
+})
+
+/** Body of `POST /api/studies/:id/bench`. */
+export const benchBodySchema = z.strictObject({
+  candidateId: z.string(says('must be a candidate id such as "segmented-m4"')).regex(/^[a-z0-9-]{1,60}$/, says('must be a candidate id such as "segmented-m4"')),
+  fileName: fileName.min(1, says('must be a file name of 1 to 255 characters')),
+  text: z.string(says(`must be the file's text, at most ${MAX_BENCH_CHARS} characters`)).max(MAX_BENCH_CHARS, says(`must be the file's text, at most ${MAX_BENCH_CHARS} characters`))
+})
+
+/** Query of `GET /api/studies/:id/netlist`: a candidate of the current revision, nominal or one sample. */
+export const netlistQuerySchema = z.object({
+  candidate: z.string(says('must be a candidate id such as "segmented-m4"')).regex(/^[a-z0-9-]{1,60}$/, says('must be a candidate id such as "segmented-m4"')),
+  seed: z.coerce.number(says('must be an integer from 0 to 4294967295')).pipe(intInRange(0, 2 ** 32 - 1)).optional(),
+  index: z.coerce.number(says(`must be an integer from 0 to ${MAX_SAMPLE_INDEX}`)).pipe(intInRange(0, MAX_SAMPLE_INDEX)).optional()
+})
+
+export const benchParamsSchema = z.object({
+  id: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1)),
+  benchId: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1))
+})

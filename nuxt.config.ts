@@ -33,6 +33,8 @@ export default defineNuxtConfig({
     // Folder of the local SMTP catcher; when set, admins see caught mail in the app (development).
     mailCatcherDir: '',
     invitationMaxAgeS: 7 * 24 * 60 * 60,
+    // Synchronous evaluations, netlists and dry runs one user may have running at once (429 beyond).
+    heavyRequestsPerUser: 2,
     public: {
       // true when a local SMTP catcher is configured (NUXT_PUBLIC_MAIL_CATCHER)
       mailCatcher: false

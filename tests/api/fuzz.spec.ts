@@ -16,7 +16,7 @@ import { FUZZ_TABLE, SPEC, type FuzzFixtures, type FuzzRow, type FuzzSample } fr
  * replays a run; fast-check prints the seed and the shrunk counterexample on failure.
  */
 const SEED = Number(process.env.FUZZ_SEED ?? Date.now() % 2 ** 31)
-const RUNS = Number(process.env.FUZZ_RUNS ?? 24)
+const RUNS = Number(process.env.FUZZ_RUNS ?? 40)
 const REQUEST_BOUND_MS = 20_000
 
 let db: Knex
@@ -39,7 +39,7 @@ beforeAll(async () => {
   f.packRowId = (await api<{ id: number }>('/api/rule-packs', { method: 'POST', cookie: adminCookie, body: { pack } })).body.id
   f.packId = pack.id
   const admin = await db('users').where({ email: DEMO.admin }).first('id', 'team_id')
-  ;[f.jobId] = await db('evaluations').insert({ team_id: admin.team_id, user_id: admin.id, status: 'done', tasks_total: 1, tasks_done: 1, input: JSON.stringify({}), engine_version: 'fuzz' })
+  f.jobId = (await db('evaluations').insert({ team_id: admin.team_id, user_id: admin.id, status: 'done', tasks_total: 1, tasks_done: 1, input: JSON.stringify({}), engine_version: 'fuzz' }))[0]!
   f.invitationToken = randomBytes(32).toString('base64url')
   await db('invitations').insert({ team_id: admin.team_id, email: `fuzz-accept-${Date.now()}@invite.example`, display_name: 'Fuzz Accept', role: 'engineer', token_hash: createHash('sha256').update(f.invitationToken).digest('hex'), expires_at: new Date(Date.now() + 3_600_000), invited_by: admin.id })
   f.db = db

@@ -53,7 +53,8 @@ async function backup(file: string | undefined): Promise<void> {
     const dump = spawn('mariadb-dump', [`--defaults-extra-file=${t.defaultsFile}`, '--single-transaction', '--quick', '--routines', '--triggers',
       '--hex-blob', '--default-character-set=utf8mb4', '--no-tablespaces', t.database], { stdio: ['ignore', 'pipe', 'pipe'] })
     const done = finished(dump, 'mariadb-dump')
-    await Promise.all([pipeline(dump.stdout!, ...(out.endsWith('.gz') ? [createGzip()] : []), createWriteStream(out, { mode: 0o600 })), done])
+    const sink = createWriteStream(out, { mode: 0o600 })
+    await Promise.all([out.endsWith('.gz') ? pipeline(dump.stdout!, createGzip(), sink) : pipeline(dump.stdout!, sink), done])
     console.log(`Backed up ${t.database} to ${out} (${statSync(out).size} bytes)`)
   } catch (error) {
     rmSync(out, { force: true })
@@ -70,7 +71,8 @@ async function restore(file: string | undefined): Promise<void> {
   try {
     const client = spawn('mariadb', [`--defaults-extra-file=${t.defaultsFile}`, '--default-character-set=utf8mb4', t.database], { stdio: ['pipe', 'inherit', 'pipe'] })
     const done = finished(client, 'mariadb')
-    await Promise.all([pipeline(createReadStream(file), ...(file.endsWith('.gz') ? [createGunzip()] : []), client.stdin!), done])
+    const source = createReadStream(file)
+    await Promise.all([file.endsWith('.gz') ? pipeline(source, createGunzip(), client.stdin!) : pipeline(source, client.stdin!), done])
     console.log(`Restored ${file} into ${t.database}`)
   } finally {
     t.cleanup()

@@ -30,13 +30,19 @@ describe('content security policy in Chromium', () => {
     await page.getByLabel('Password').fill(DEMO_PASSWORD)
     expect(await violations()).toEqual([])
     await page.getByRole('button', { name: 'Sign in' }).click()
-    await page.waitForURL(url => url.pathname === '/studies', { waitUntil: 'commit', timeout: 60_000 })
+    await page.waitForURL(url => url.pathname === '/studies', { waitUntil: 'commit', timeout: 60_000 }).catch(async (error: unknown) => {
+      await page.screenshot({ path: 'tests/e2e/screenshots/csp-sign-in-failed.png' })
+      throw new Error(`no navigation after sign-in; CSP: ${(await violations()).join('; ')}; ${String(error)}`)
+    })
     await page.getByRole('link', { name: STUDY }).waitFor({ timeout: 60_000 })
     expect(await violations()).toEqual([])
     await page.getByRole('link', { name: STUDY }).click()
     await page.waitForURL(/\/studies\/\d+$/)
     // The live preview answers from the Web Worker; the charts draw with apexcharts.
-    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 30_000 }).toContain('up to date')
+    await expect.poll(async () => {
+      const found = await violations()
+      return found.length > 0 ? found.join('\n') : await page.getByTestId('live-state').textContent()
+    }, { timeout: 60_000 }).toContain('up to date')
     await page.locator('.apexcharts-canvas').first().waitFor({ timeout: 30_000 })
     // The self-hosted Lexend faces loaded (a font-src refusal would leave them unloaded).
     expect(await page.evaluate(async () => {

@@ -13,7 +13,7 @@ import { api, DEMO, signIn } from '../support/http'
  * show it literally, hold no element it injected, and open no dialog. The DOM check is independent
  * of the CSP, which would block the script anyway: it catches an unescaped render (v-html) too.
  */
-const payload = (label: string) => `${label}<img src=x onerror="window.__xss='${label}'"><script>window.__xss='${label}'</script>`
+const payload = (label: string) => `${label}<img src=x onerror="window.__xss=1"><script>window.__xss=2</script>`
 const PROCESS = { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }
 const tag = Date.now().toString(36)
 let browser: Browser

@@ -121,7 +121,9 @@ export default defineNuxtConfig({
         'worker-src': ['\'self\'', 'blob:'],
         'upgrade-insecure-requests': false
       },
-      crossOriginEmbedderPolicy: 'credentialless',
+      // Off: the app needs no cross-origin isolation, and under COEP Chromium refuses a dedicated
+      // worker whose script response lacks COEP (the module sends it on HTML only): no live preview.
+      crossOriginEmbedderPolicy: false,
       referrerPolicy: 'same-origin',
       strictTransportSecurity: false,
       xFrameOptions: 'DENY',

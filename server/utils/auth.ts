@@ -12,13 +12,13 @@ function secretKey(): Uint8Array {
 
 /** Creates a session row and sets the httpOnly cookie holding its signed token. */
 export async function startSession(event: H3Event, userId: number): Promise<void> {
-  const { sessionMaxAgeS, cookieSecure } = useRuntimeConfig()
+  const { sessionMaxAgeS, cookieSecure, https } = useRuntimeConfig()
   const tokenId = randomBytes(24).toString('hex')
   const expiresAt = new Date(Date.now() + sessionMaxAgeS * 1000)
   await useDb()('sessions').insert({ token_id: tokenId, user_id: userId, expires_at: expiresAt, ip: getRequestIP(event, { xForwardedFor: false }) ?? null })
   const jwt = await new SignJWT({ sub: String(userId) }).setProtectedHeader({ alg: 'HS256' })
     .setJti(tokenId).setIssuedAt().setExpirationTime(Math.floor(expiresAt.getTime() / 1000)).sign(secretKey())
-  setCookie(event, SESSION_COOKIE, jwt, { httpOnly: true, sameSite: 'lax', secure: Boolean(cookieSecure), path: '/', maxAge: sessionMaxAgeS })
+  setCookie(event, SESSION_COOKIE, jwt, { httpOnly: true, sameSite: 'lax', secure: Boolean(cookieSecure) || Boolean(https), path: '/', maxAge: sessionMaxAgeS })
 }
 
 /** Revokes the current session (if any) and clears the cookie. */

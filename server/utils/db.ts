@@ -24,5 +24,8 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   const { code, name, message } = error as { code?: string, name?: string, message?: string }
   if (code && UNAVAILABLE_CODES.has(code)) return true
   if (name === 'KnexTimeoutError') return true
-  return typeof message === 'string' && /connect ECONNREFUSED|Connection lost|Timeout acquiring a connection/.test(message)
+  // mysql2 marks connection-level failures fatal; a transaction whose connection died mid-way fails
+  // its ROLLBACK with "Can't add new command when connection is in closed state" and no code.
+  if ((error as { fatal?: unknown }).fatal === true) return true
+  return typeof message === 'string' && /connect ECONNREFUSED|Connection lost|Timeout acquiring a connection|connection is in closed state/.test(message)
 }

@@ -14,16 +14,21 @@ const running = new Map<number, AbortController>()
 /** Inserts a job row and starts it in the pool without waiting; returns the job id. */
 export async function startEvaluationJob(user: SessionUser, input: EvaluateInput): Promise<number> {
   const db = useDb()
-  const active = await db('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
-  if (Number(active[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) {
-    throw createError({ statusCode: 429, statusMessage: 'Too many evaluations running', message: `At most ${MAX_ACTIVE_JOBS_PER_USER} evaluations may run at once per user; wait for one to finish or cancel it` })
-  }
-  const [id] = await db('evaluations').insert({
-    team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
-    input: JSON.stringify(input), engine_version: ENGINE_VERSION
+  // Count and insert under a lock on the user's row, so two concurrent starts cannot both pass.
+  const id = await db.transaction(async (trx) => {
+    await trx('users').where({ id: user.id }).forUpdate().first('id')
+    const active = await trx('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
+    if (Number(active[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) {
+      throw createError({ statusCode: 429, statusMessage: 'Too many evaluations running', message: `At most ${MAX_ACTIVE_JOBS_PER_USER} evaluations may run at once per user; wait for one to finish or cancel it` })
+    }
+    const [rowId] = await trx('evaluations').insert({
+      team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
+      input: JSON.stringify(input), engine_version: ENGINE_VERSION
+    })
+    return rowId!
   })
-  void runJob(id!, user.teamId, input)
-  return id!
+  void runJob(id, user.teamId, input)
+  return id
 }
 
 async function runJob(id: number, teamId: number, input: EvaluateInput): Promise<void> {
@@ -74,9 +79,13 @@ export async function readEvaluationJob(teamId: number, id: number, withResult: 
 }
 
 /** Marks a queued or running job cancelled; the running instance stops at its next task. */
-export async function cancelEvaluationJob(teamId: number, id: number): Promise<boolean> {
-  const changed = await useDb()('evaluations').where({ id, team_id: teamId }).whereIn('status', ['queued', 'running'])
-    .update({ status: 'cancelled', finished_at: new Date() })
+export async function cancelEvaluationJob(teamId: number, id: number, actor?: SessionUser): Promise<boolean> {
+  const changed = await useDb().transaction(async (trx) => {
+    const n = await trx('evaluations').where({ id, team_id: teamId }).whereIn('status', ['queued', 'running'])
+      .update({ status: 'cancelled', finished_at: new Date() })
+    if (n > 0 && actor) await writeAudit({ teamId, actorId: actor.id, action: 'evaluation_cancelled', targetType: 'evaluation', targetId: id }, trx)
+    return n
+  })
   running.get(id)?.abort()
   return changed > 0
 }

@@ -6,6 +6,8 @@ import { fileURLToPath } from 'node:url'
 import { Piscina } from 'piscina'
 import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
+import type { NetlistInput } from '#shared/core/contract/netlist'
+import { exportNetlist } from '#shared/core/netlist/export'
 import { applyFindings } from '#shared/findings'
 import type { RulePack } from '#shared/findings/schema'
 
@@ -91,4 +93,15 @@ export async function evaluateInPool(input: EvaluateInput, options: { signal?: A
 /** Number of tasks an input splits into (for progress reporting before the run starts). */
 export function evaluationTaskCount(input: EvaluateInput): number {
   return planEvaluation(input).length
+}
+
+/**
+ * The netlist contract's output as JSON text, built on a worker thread: a 16-bit string DAC is a
+ * 65,536-resistor netlist of tens of MB, seconds of work that would otherwise stall every request
+ * on this thread. The worker also serialises it, so only one string crosses back.
+ */
+export async function netlistJsonInPool(input: NetlistInput, signal?: AbortSignal): Promise<string> {
+  const p = usePool()
+  if (!p) return JSON.stringify(exportNetlist(input))
+  return await (p.run({ kind: 'netlist', input }, { signal }) as Promise<string>)
 }

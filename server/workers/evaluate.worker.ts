@@ -9,6 +9,8 @@
 import './require-shim'
 import { setPriority } from 'node:os'
 import type { EvaluateInput } from '../../shared/core/contract/evaluate'
+import type { NetlistInput } from '../../shared/core/contract/netlist'
+import { exportNetlist } from '../../shared/core/netlist/export'
 import type { EvaluationPart, EvaluationTask } from '../../shared/core/evaluate'
 import { mergeEvaluation, runEvaluationTask } from '../../shared/core/evaluate'
 import type { EvaluateOutputWithFindings } from '../../shared/findings/index'
@@ -29,8 +31,15 @@ export interface FinishTask {
   packs: RulePack[]
 }
 
-/** Runs one evaluation task (pure, synchronous) or the finishing step. */
-export default function run(task: EvaluationTask | FinishTask): EvaluationPart | Promise<EvaluateOutputWithFindings> {
+/** A netlist export, answered as JSON text (POST /api/netlist). */
+export interface NetlistTask {
+  kind: 'netlist'
+  input: NetlistInput
+}
+
+/** Runs one evaluation task (pure, synchronous), the finishing step or a netlist export. */
+export default function run(task: EvaluationTask | FinishTask | NetlistTask): EvaluationPart | string | Promise<EvaluateOutputWithFindings> {
+  if (task.kind === 'netlist') return JSON.stringify(exportNetlist(task.input))
   if (task.kind === 'finish') {
     return applyFindings(task.input, mergeEvaluation(task.input, task.parts), task.packs)
   }

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { evaluateProcessSchema, evaluateSpecSchema } from '../core/contract/evaluate'
 import { intInRange, says } from '../core/contract/fields'
+import { rangedInteger } from './study'
 
 /**
  * Bodies of the team library routes: process presets (`/api/presets`) and spec templates
@@ -32,3 +33,6 @@ export type PresetCreate = z.infer<typeof presetCreateSchema>
 export type PresetPatch = z.infer<typeof presetPatchSchema>
 export type TemplateCreate = z.infer<typeof templateCreateSchema>
 export type TemplatePatch = z.infer<typeof templatePatchSchema>
+
+/** DELETE ?version=N: refuse (409) when the item changed since the caller saw it; omitted = delete whatever is there. */
+export const libraryDeleteQuerySchema = z.object({ version: rangedInteger(1, 2 ** 31 - 1, true).optional() })

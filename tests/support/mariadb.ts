@@ -57,8 +57,11 @@ export async function stopInstance(cnf: string): Promise<void> {
   await waitFor(() => !ping(cnf), 30_000, 'the test MariaDB to stop')
 }
 
-/** Initialises and starts an instance, creates database `rungwise_test` and user `app`. */
-export async function startTestDatabase(): Promise<TestDatabase> {
+/**
+ * Initialises and starts an instance, creates database `rungwise_test` and user `app`. `extra`
+ * server options go last, so they win (the crash test wants innodb-flush-log-at-trx-commit=1).
+ */
+export async function startTestDatabase(extra: string[] = []): Promise<TestDatabase> {
   const base = existsSync('/dev/shm') ? '/dev/shm' : tmpdir()
   const dir = mkdtempSync(join(base, 'rw-db-'))
   const port = await freePort()
@@ -68,7 +71,7 @@ export async function startTestDatabase(): Promise<TestDatabase> {
     '[client]', `port=${port}`, `socket=${dir}/db.sock`, '[mariadbd]', runAs, `port=${port}`, 'bind-address=127.0.0.1',
     'skip-name-resolve', `socket=${dir}/db.sock`, `pid-file=${dir}/db.pid`, `datadir=${dir}/data`, `log-error=${dir}/db.err`,
     'character-set-server=utf8mb4', 'collation-server=utf8mb4_unicode_ci', 'innodb-flush-log-at-trx-commit=0',
-    'innodb-doublewrite=0', 'max_connections=300', 'max_allowed_packet=256M', ''
+    'innodb-doublewrite=0', 'max_connections=300', 'max_allowed_packet=256M', ...extra, ''
   ].join('\n'))
   execFileSync(bin('mariadb-install-db'), [`--defaults-file=${cnf}`, `--datadir=${dir}/data`, '--skip-test-db', '--auth-root-authentication-method=normal'], { stdio: 'ignore' })
   await startInstance(cnf)

@@ -8,6 +8,6 @@ export default defineApiHandler(async (event): Promise<EvaluationJobDto> => {
   const job = await readEvaluationJob(user.teamId, id, false)
   if (!job) throw createError({ statusCode: 404, statusMessage: MESSAGES.notFound })
   if (job.userId !== user.id && user.role !== 'admin') throw createError({ statusCode: 403, statusMessage: MESSAGES.forbidden })
-  await cancelEvaluationJob(user.teamId, id)
+  await cancelEvaluationJob(user.teamId, id, user)
   return (await readEvaluationJob(user.teamId, id, false))!
 })

@@ -9,5 +9,5 @@ export default defineApiHandler(async (event): Promise<RulePackDryRunDto> => {
     const message = 'pack: is missing; it must be the rule pack to try'
     throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: 'pack', message: 'is missing; it must be the rule pack to try' }] } })
   }
-  return await dryRunPack(user.teamId, { ...body.pack, version: 0, source: 'team' }, body)
+  return await withHeavySlot(user, 'dry-run', () => dryRunPack(user.teamId, { ...body.pack!, version: 0, source: 'team' }, body))
 })

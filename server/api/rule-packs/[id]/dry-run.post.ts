@@ -10,5 +10,5 @@ export default defineApiHandler(async (event): Promise<RulePackDryRunDto> => {
   const row = await useDb()('rule_packs').where({ id, team_id: user.teamId }).first()
   if (!row) throw rulePackNotFound()
   const stored = toRulePackDto(row)
-  return await dryRunPack(user.teamId, { ...(body.pack ?? stored.pack), version: stored.version, source: 'team' }, body)
+  return await withHeavySlot(user, 'dry-run', () => dryRunPack(user.teamId, { ...(body.pack ?? stored.pack), version: stored.version, source: 'team' }, body))
 })

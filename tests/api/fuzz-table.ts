@@ -1,0 +1,99 @@
+import type { Knex } from 'knex'
+import { matrixPack } from './authorization-rule-packs'
+
+/**
+ * One row per API route for the fuzz spec: who calls, a valid request (path parameters, body, query)
+ * that the fuzzer mutates, and the tables a refused request must leave exactly as they were.
+ * A route file without a row fails tests/api/fuzz.spec.ts; a new route means one new row here.
+ */
+export interface FuzzFixtures {
+  db: Knex
+  studyId: number
+  presetId: number
+  templateId: number
+  packRowId: number
+  packId: string
+  jobId: number
+  invitationToken: string
+}
+
+export interface FuzzSample {
+  params?: Record<string, string>
+  body?: unknown
+  query?: Record<string, string>
+}
+
+export interface FuzzRow {
+  route: string
+  as: 'admin' | 'signedOut'
+  sample: (f: FuzzFixtures) => FuzzSample | Promise<FuzzSample>
+  /** tables compared with CHECKSUM TABLE before and after every refused request */
+  tables: string[]
+  /** runs relative to the default (heavy routes get fewer) */
+  weight?: number
+}
+
+export const SPEC = { bits: 8, vrefV: 2.5, updateRateHz: 1e6, loadCapacitanceF: 1e-12, areaBudgetMm2: 0.05, inlTargetLsb: 0.5, dnlTargetLsb: 0.5, yieldTarget: 0.99, glitchLimitVs: 1e-10, powerBudgetW: 1e-3 }
+const PROCESS = { sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }
+const LADDER = { topology: 'r2r-voltage', bits: 3, vrefV: 1, legsOhm: [2e4, 2e4, 2e4], seriesOhm: [1e4, 1e4], terminationOhm: 2e4 }
+const EVALUATE = { spec: SPEC, process: PROCESS, options: { topologies: ['r2r-voltage'], trials: 20, seed: 1 } }
+
+const STUDY_TABLES = ['studies', 'study_revisions', 'audit_log']
+const PRESET_TABLES = ['process_presets', 'audit_log']
+const TEMPLATE_TABLES = ['spec_templates', 'audit_log']
+const PACK_TABLES = ['rule_packs', 'rule_pack_versions', 'audit_log']
+const id = (n: number) => ({ id: String(n) })
+const unique = () => `Fuzz ${Date.now()} ${Math.floor(Math.random() * 1e9)}`
+
+async function revisionBody(f: FuzzFixtures) {
+  const study = await f.db('studies').where({ id: f.studyId }).first('version')
+  return { baseVersion: study.version, spec: SPEC, process: PROCESS, options: { topologies: ['string'], trials: 0, seed: 1 }, note: 'fuzz' }
+}
+
+async function packVersion(f: FuzzFixtures): Promise<number> {
+  return (await f.db('rule_packs').where({ id: f.packRowId }).first('version')).version
+}
+
+const PORTFOLIO_QUERY = { page: '1', pageSize: '25', status: 'all', q: 'demo', sort: 'updated', dir: 'desc' }
+
+export const FUZZ_TABLE: FuzzRow[] = [
+  { route: 'GET /api/health', as: 'signedOut', sample: () => ({}), tables: [] },
+  { route: 'POST /api/auth/login', as: 'signedOut', sample: () => ({ body: { email: 'fuzz@nowhere.example', password: 'not-the-password' } }), tables: ['sessions', 'users'] },
+  { route: 'POST /api/auth/logout', as: 'signedOut', sample: () => ({ body: {} }), tables: ['users'] },
+  { route: 'GET /api/auth/session', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'GET /api/studies', as: 'admin', sample: () => ({ query: { page: '1', pageSize: '25' } }), tables: [] },
+  { route: 'POST /api/studies', as: 'admin', sample: () => ({ body: { title: unique(), blockName: 'DAC0', spec: SPEC } }), tables: STUDY_TABLES },
+  { route: 'GET /api/studies/:id', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/revisions', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'POST /api/studies/:id/revisions', as: 'admin', sample: async f => ({ params: id(f.studyId), body: await revisionBody(f) }), tables: STUDY_TABLES },
+  { route: 'GET /api/studies/:id/revisions/:n', as: 'admin', sample: f => ({ params: { id: String(f.studyId), n: '1' } }), tables: [] },
+  { route: 'GET /api/studies/:id/revisions/compare', as: 'admin', sample: f => ({ params: id(f.studyId), query: { from: '1', to: '1' } }), tables: [] },
+  { route: 'POST /api/solve', as: 'admin', sample: () => ({ body: LADDER }), tables: [] },
+  { route: 'POST /api/netlist', as: 'admin', sample: () => ({ body: { circuit: LADDER } }), tables: [] },
+  { route: 'POST /api/evaluate', as: 'admin', sample: () => ({ body: EVALUATE }), tables: [], weight: 0.5 },
+  { route: 'POST /api/evaluations', as: 'admin', sample: () => ({ body: EVALUATE }), tables: [], weight: 0.5 },
+  { route: 'GET /api/evaluations/:id', as: 'admin', sample: f => ({ params: id(f.jobId), query: { result: '0' } }), tables: [] },
+  { route: 'DELETE /api/evaluations/:id', as: 'admin', sample: f => ({ params: id(f.jobId) }), tables: [] },
+  { route: 'GET /api/presets', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'POST /api/presets', as: 'admin', sample: () => ({ body: { name: unique(), description: 'fuzz', process: PROCESS } }), tables: PRESET_TABLES },
+  { route: 'PATCH /api/presets/:id', as: 'admin', sample: async f => ({ params: id(f.presetId), body: { version: (await f.db('process_presets').where({ id: f.presetId }).first('version')).version, name: unique(), description: 'fuzz', process: PROCESS } }), tables: PRESET_TABLES },
+  { route: 'DELETE /api/presets/:id', as: 'admin', sample: () => ({ params: { id: '2147483000' }, query: { version: '1' } }), tables: PRESET_TABLES },
+  { route: 'GET /api/templates', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'POST /api/templates', as: 'admin', sample: () => ({ body: { name: unique(), description: 'fuzz', spec: SPEC } }), tables: TEMPLATE_TABLES },
+  { route: 'PATCH /api/templates/:id', as: 'admin', sample: async f => ({ params: id(f.templateId), body: { version: (await f.db('spec_templates').where({ id: f.templateId }).first('version')).version, name: unique(), spec: SPEC } }), tables: TEMPLATE_TABLES },
+  { route: 'DELETE /api/templates/:id', as: 'admin', sample: () => ({ params: { id: '2147483000' }, query: { version: '1' } }), tables: TEMPLATE_TABLES },
+  { route: 'GET /api/rule-packs', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'POST /api/rule-packs', as: 'admin', sample: () => ({ body: { pack: matrixPack('fuzz'), enabled: false } }), tables: PACK_TABLES },
+  { route: 'GET /api/rule-packs/:id', as: 'admin', sample: f => ({ params: id(f.packRowId) }), tables: [] },
+  { route: 'GET /api/rule-packs/:id/history', as: 'admin', sample: f => ({ params: id(f.packRowId) }), tables: [] },
+  { route: 'PATCH /api/rule-packs/:id', as: 'admin', sample: async f => ({ params: id(f.packRowId), body: { version: await packVersion(f), enabled: false, pack: { ...matrixPack('fuzz'), id: f.packId } } }), tables: PACK_TABLES },
+  { route: 'POST /api/rule-packs/:id/dry-run', as: 'admin', sample: f => ({ params: id(f.packRowId), body: { input: EVALUATE } }), tables: PACK_TABLES, weight: 0.5 },
+  { route: 'POST /api/rule-packs/dry-run', as: 'admin', sample: () => ({ body: { pack: matrixPack('fuzz'), input: EVALUATE } }), tables: PACK_TABLES, weight: 0.5 },
+  { route: 'GET /api/team', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'POST /api/team/invitations', as: 'admin', sample: () => ({ body: { email: `fuzz-${Date.now()}-${Math.floor(Math.random() * 1e9)}@invite.example`, name: 'Fuzz Invitee', role: 'engineer' } }), tables: ['invitations', 'users', 'audit_log'] },
+  { route: 'GET /api/invitations/:token', as: 'signedOut', sample: f => ({ params: { token: f.invitationToken } }), tables: [] },
+  { route: 'POST /api/invitations/:token/accept', as: 'signedOut', sample: f => ({ params: { token: f.invitationToken }, body: { password: 'a-long-enough-password' } }), tables: ['invitations', 'users', 'audit_log'] },
+  { route: 'GET /api/admin/mail', as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'GET /api/portfolio', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [] },
+  { route: 'GET /api/portfolio/export', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [], weight: 0.5 }
+]

@@ -1,5 +1,6 @@
 import knex, { type Knex } from 'knex'
 import { knexConfig } from '../db/knexfile'
+import { retryOnDeadlock } from './retry'
 
 let instance: Knex | undefined
 
@@ -10,6 +11,15 @@ export function useDb(): Knex {
     instance = knex(knexConfig(databaseUrl))
   }
   return instance
+}
+
+/**
+ * `useDb().transaction(work)`, run again when the database rolls it back as a deadlock victim or
+ * a Galera certification failure (see retry.ts). Use it for writes whose every effect is inside
+ * the transaction; the work function must not keep state between tries.
+ */
+export function writeTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+  return retryOnDeadlock(() => useDb().transaction(work))
 }
 
 /** Codes that mean "the database cannot be reached", as opposed to a bad query. */

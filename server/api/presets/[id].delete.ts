@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/schemas/study'
 export default defineApiHandler(async (event) => {
   const user = await requireUser(event, ...LIBRARY_WRITER_ROLES)
   const { id } = paramsAs(event, idParamSchema)
-  await useDb().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     const row = await trx('process_presets').where({ id, team_id: user.teamId }).forUpdate().first('name')
     if (!row) throw notFound()
     await trx('process_presets').where({ id }).delete()

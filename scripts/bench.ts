@@ -9,6 +9,7 @@ import { runSolveBench } from './bench/solve'
 import { runApiBench } from './bench/api'
 import { runMonteCarloBench } from './bench/montecarlo'
 import { runEvaluateBench } from './bench/evaluate'
+import { runScaleBench } from './bench/scale'
 
 interface Section {
   section: string
@@ -19,7 +20,8 @@ const SECTIONS: Section[] = [
   { section: 'solve', run: runSolveBench },
   { section: 'api', run: runApiBench },
   { section: 'montecarlo', run: runMonteCarloBench },
-  { section: 'evaluate', run: runEvaluateBench }
+  { section: 'evaluate', run: runEvaluateBench },
+  { section: 'scale', run: runScaleBench }
   // other sections (Monte Carlo / evaluation, API) go here
 ]
 
@@ -31,7 +33,9 @@ function format(x: number): string {
 
 async function main(): Promise<number> {
   const report: Array<BenchRow & { section: string }> = []
-  for (const s of SECTIONS) {
+  // `npm run bench -- scale` runs the named sections only.
+  const only = process.argv.slice(2)
+  for (const s of SECTIONS.filter(x => !only.length || only.includes(x.section))) {
     for (const row of await s.run()) report.push({ section: s.section, ...row })
   }
   for (const r of report) {

@@ -3,6 +3,7 @@ import type { PortfolioQuery } from '#shared/schemas/portfolio'
 import type { PortfolioRow } from '#shared/types/portfolio'
 
 const SORT_COLUMNS = { updated: 's.updated_at', title: 's.title', status: 's.status', area: 's.summary_area_mm2', fails: 's.summary_fail_count' } as const
+const NULLABLE_SORTS = new Set<PortfolioQuery['sort']>(['area', 'fails'])
 
 /** The team's studies matching the filters (no paging); every portfolio query starts here. */
 export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 'status' | 'q'>) {
@@ -17,11 +18,14 @@ export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 
 
 /** One page (or, with `limit`, the first rows) sorted as asked, ties broken by id. */
 export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit = q.pageSize, offset = (q.page - 1) * q.pageSize) {
-  return portfolioBase(db, teamId, q)
+  const query = portfolioBase(db, teamId, q)
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
       's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count')
-    .orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
-    .orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
+  // Studies without results sort last. Only the nullable summary columns need the IS NULL term,
+  // and only ascending (MariaDB puts NULL last in descending order): without it the sort can
+  // walk an index instead of sorting the team's rows.
+  if (NULLABLE_SORTS.has(q.sort) && q.dir === 'asc') query.orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
+  return query.orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
     .limit(limit).offset(offset)
 }
 

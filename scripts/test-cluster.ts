@@ -8,11 +8,12 @@
  * Prints the figures and writes cluster-report.json. Needs a build (it runs one when missing).
  */
 import { execFileSync, spawnSync } from 'node:child_process'
-import { existsSync, writeFileSync } from 'node:fs'
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs'
 import { startAppServer, stopAppServer, SERVER_ENTRY, type AppServer } from '../tests/support/app-server'
 import { writeBurst } from './cluster/burst'
 import { clusterSize, ensureGaleraPackages, killNode, rejoinNode, sql, startCluster, stopCluster, type GaleraCluster } from './cluster/galera'
 
+const LOG_DIR = '.data/cluster-logs'
 const log = (line: string) => console.log(`[cluster] ${line}`)
 const sleep = (ms: number) => new Promise(r => setTimeout(r, ms))
 const SPEC = {
@@ -65,8 +66,11 @@ async function faultRun(cluster: GaleraCluster) {
     const killedAt = performance.now()
     killNode(n2!)
     log('node 2 killed (SIGKILL) during the burst')
-    await sleep(4000)
+    // Until the survivors drop the dead node from the cluster (failure detection), then 2 s more.
+    while (clusterSize(n1!) > 2 && performance.now() - killedAt < 20_000) await sleep(100)
+    const detectedS = (performance.now() - killedAt) / 1000
     const sizeDuringLoss = clusterSize(n1!)
+    await sleep(2000)
     const rejoin = await rejoinNode(n2!)
     log(`node 2 rejoined in ${rejoin.seconds.toFixed(1)} s (${rejoin.ist ? 'IST' : 'state transfer'}, from ${rejoin.position})`)
     const bBackS = await firstOk(b.url, cookie, 30_000)
@@ -84,10 +88,13 @@ async function faultRun(cluster: GaleraCluster) {
       acknowledged: ids.length, perInstance: result.perInstance, failedOnFirstTry: result.failedOnFirstTry.length,
       failedOnFirstTryByStatus: result.failedOnFirstTry.reduce<Record<string, number>>((m, f) => ({ ...m, [`${f.via} ${f.status}`]: (m[`${f.via} ${f.status}`] ?? 0) + 1 }), {}),
       unserved: result.unserved.length, slowestRequestMs: Math.round(result.slowestMs), clusterSizeDuringLoss: sizeDuringLoss,
-      rejoinSeconds: Number(rejoin.seconds.toFixed(1)), rejoinByIst: rejoin.ist, instanceBServesAgainAfterRejoinS: bBackS, lossSeconds: Number(((performance.now() - killedAt) / 1000).toFixed(1)),
+      nodeDroppedAfterS: Number(detectedS.toFixed(1)), rejoinSeconds: Number(rejoin.seconds.toFixed(1)),
+      transactionsRetried: servers.reduce((n, s) => n + (s.log().match(/transaction retried/g)?.length ?? 0), 0), rejoinByIst: rejoin.ist, instanceBServesAgainAfterRejoinS: bBackS, lossSeconds: Number(((performance.now() - killedAt) / 1000).toFixed(1)),
       nodes
     }
   } finally {
+    mkdirSync(LOG_DIR, { recursive: true })
+    servers.forEach((s, i) => writeFileSync(`${LOG_DIR}/app-${'AB'[i]}.log`, s.log()))
     for (const s of servers) await stopAppServer(s)
   }
 }
@@ -100,13 +107,15 @@ async function main(): Promise<number> {
   }
   const t0 = performance.now()
   const cluster = await startCluster()
+  let passed = false
   try {
     log(`3 nodes Synced in ${((performance.now() - t0) / 1000).toFixed(1)} s (cluster size ${clusterSize(cluster.nodes[0]!)})`)
     for (const command of ['latest', 'seed']) {
       execFileSync(process.execPath, ['--import', 'tsx', 'scripts/migrate.ts', command], { env: { ...process.env, NUXT_DATABASE_URL: cluster.nodes[0]!.url }, stdio: 'pipe' })
     }
     log('migrated and seeded through node 1')
-    const suite = runApiSuite(cluster)
+    // CLUSTER_SKIP_API=1 runs the fault part only (while working on it; the full run needs the suite).
+    const suite = process.env.CLUSTER_SKIP_API === '1' ? { ok: false, summary: 'skipped (CLUSTER_SKIP_API=1)' } : runApiSuite(cluster)
     log(`API tests: ${suite.ok ? 'passed' : 'FAILED'}: ${suite.summary}`)
     const fault = await faultRun(cluster)
     const consistent = Object.values(fault.nodes).every(n => n.missing === 0 && n.withoutAudit === 0)
@@ -115,14 +124,17 @@ async function main(): Promise<number> {
       { name: 'every acknowledged write on nodes 1, 2 (rejoined) and 3, each with its audit row', pass: consistent && fault.acknowledged > 0 },
       { name: 'no request unserved during the loss (each answered by A or B)', pass: fault.unserved === 0 },
       { name: 'instance B serves again after node 2 rejoins, without a restart', pass: fault.instanceBServesAgainAfterRejoinS !== null },
-      { name: 'the killed node rejoined by IST', pass: fault.rejoinByIst }
+      { name: 'the killed node rejoined by IST', pass: fault.rejoinByIst },
+      { name: 'the survivors kept quorum (cluster of 2 during the loss)', pass: fault.clusterSizeDuringLoss === 2 }
     ]
     console.log(JSON.stringify(fault, null, 2))
     for (const c of checks) console.log(`${c.pass ? 'ok  ' : 'MISS'} ${c.name}`)
     writeFileSync('cluster-report.json', `${JSON.stringify({ date: new Date().toISOString(), suite, fault, checks }, null, 2)}\n`)
-    return checks.every(c => c.pass) ? 0 : 1
+    passed = checks.every(c => c.pass)
+    return passed ? 0 : 1
   } finally {
-    await stopCluster(cluster)
+    if (!passed) log(`node and app logs kept in ${LOG_DIR}/`)
+    await stopCluster(cluster, passed ? undefined : LOG_DIR)
   }
 }
 

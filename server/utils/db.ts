@@ -19,7 +19,9 @@ export function useDb(): Knex {
  * the transaction; the work function must not keep state between tries.
  */
 export function writeTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
-  return retryOnDeadlock(() => useDb().transaction(work))
+  return retryOnDeadlock(() => useDb().transaction(work), {
+    onRetry: (error, attempt) => console.warn(`[rungwise] transaction retried after ${(error as { code?: string }).code} (try ${attempt + 1})`)
+  })
 }
 
 /** Codes that mean "the database cannot be reached", as opposed to a bad query. */
@@ -31,8 +33,11 @@ const UNAVAILABLE_CODES = new Set([
 /** True when an error says the database is down or unreachable (→ 503, not 500). */
 export function isDatabaseUnavailable(error: unknown): boolean {
   if (!error || typeof error !== 'object') return false
-  const { code, name, message } = error as { code?: string, name?: string, message?: string }
+  const { code, errno, name, message } = error as { code?: string, errno?: number, name?: string, message?: string }
   if (code && UNAVAILABLE_CODES.has(code)) return true
   if (name === 'KnexTimeoutError') return true
-  return typeof message === 'string' && /connect ECONNREFUSED|Connection lost|Timeout acquiring a connection/.test(message)
+  // A Galera node without quorum refuses queries ("WSREP has not yet prepared node for application
+  // use", errno 1047) until the cluster heals: unavailable, not a bug.
+  if (errno === 1047) return true
+  return typeof message === 'string' && /connect ECONNREFUSED|Connection lost|Timeout acquiring a connection|WSREP has not yet prepared node|closed state/.test(message)
 }

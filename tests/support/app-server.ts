@@ -6,7 +6,7 @@ import { freePort } from './mariadb'
 const root = fileURLToPath(new URL('../..', import.meta.url))
 export const SERVER_ENTRY = `${root}.output/server/index.mjs`
 
-export interface AppServer { url: string, port: number, process: ChildProcess }
+export interface AppServer { url: string, port: number, process: ChildProcess, /** what the server printed so far */ log: () => string }
 
 /** Starts the built Nitro server against the given database and waits for /api/health. */
 export async function startAppServer(databaseUrl: string, env: Record<string, string> | ((port: number) => Record<string, string>) = {}): Promise<AppServer> {
@@ -28,7 +28,7 @@ export async function startAppServer(databaseUrl: string, env: Record<string, st
     if (child.exitCode !== null) throw new Error(`App server exited early:\n${log}`)
     try {
       const res = await fetch(`${url}/api/health`)
-      if (res.status === 200) return { url, port, process: child }
+      if (res.status === 200) return { url, port, process: child, log: () => log }
     } catch {
       // not listening yet
     }

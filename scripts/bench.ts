@@ -10,6 +10,7 @@ import { runSolveBench } from './bench/solve'
 import { runApiBench } from './bench/api'
 import { runMonteCarloBench } from './bench/montecarlo'
 import { runEvaluateBench } from './bench/evaluate'
+import { runScaleBench } from './bench/scale'
 
 interface Section {
   section: string
@@ -20,7 +21,8 @@ const SECTIONS: Section[] = [
   { section: 'solve', run: runSolveBench },
   { section: 'api', run: runApiBench },
   { section: 'montecarlo', run: runMonteCarloBench },
-  { section: 'evaluate', run: runEvaluateBench }
+  { section: 'evaluate', run: runEvaluateBench },
+  { section: 'scale', run: runScaleBench }
 ]
 
 function format(x: number): string {

@@ -13,19 +13,19 @@ const running = new Map<number, AbortController>()
 
 /** Inserts a job row and starts it in the pool without waiting; returns the job id. */
 export async function startEvaluationJob(user: SessionUser, input: EvaluateInput): Promise<number> {
-  const db = useDb()
-  // Count and insert under a lock on the user's row, so two concurrent starts cannot both pass.
-  const id = await db.transaction(async (trx) => {
+  // The user's row lock serialises the count and the insert, so concurrent requests (on any
+  // instance) cannot both pass the cap.
+  const id = await writeTransaction(async (trx) => {
     await trx('users').where({ id: user.id }).forUpdate().first('id')
     const active = await trx('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
     if (Number(active[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) {
       throw createError({ statusCode: 429, statusMessage: 'Too many evaluations running', message: `At most ${MAX_ACTIVE_JOBS_PER_USER} evaluations may run at once per user; wait for one to finish or cancel it` })
     }
-    const [rowId] = await trx('evaluations').insert({
+    const [inserted] = await trx('evaluations').insert({
       team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
       input: JSON.stringify(input), engine_version: ENGINE_VERSION
     })
-    return rowId!
+    return inserted!
   })
   void runJob(id, user.teamId, input)
   return id

@@ -16,7 +16,7 @@ export async function inviteMember(admin: SessionUser, body: InvitationCreate): 
   const { appUrl, invitationMaxAgeS } = useRuntimeConfig()
   const token = randomBytes(32).toString('base64url')
   const expiresAt = new Date(Date.now() + invitationMaxAgeS * 1000)
-  return useDb().transaction(async (trx) => {
+  return writeTransaction(async (trx) => {
     if (await trx('users').where({ email: body.email }).first('id')) {
       throw createError({ statusCode: 409, statusMessage: 'Already a member', message: 'email: someone with this address already has an account' })
     }
@@ -49,7 +49,7 @@ export function toInvitationPreview(row: Awaited<ReturnType<typeof findInvitatio
 /** Sets the password once: creates the active user and closes the invitation, atomically. */
 export async function acceptInvitation(token: string, password: string): Promise<void> {
   const passwordHash = await bcrypt.hash(password, 12)
-  await useDb().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     const row = await trx('invitations').where({ token_hash: hashToken(token) }).whereNull('accepted_at').where('expires_at', '>', new Date()).forUpdate().first()
     if (!row) throw createError({ statusCode: 410, statusMessage: 'This invitation link has been used or has expired; ask your admin for a new one' })
     if (await trx('users').where({ email: row.email }).first('id')) {

@@ -31,7 +31,7 @@ export async function queueMail(trx: Knex.Transaction, message: MailContent & { 
 
 /** Claims due messages (rows locked by another instance are skipped) and marks them sending. */
 async function claimDue(limit: number): Promise<{ id: number, to_address: string, subject: string, text_body: string, html_body: string, attempts: number }[]> {
-  return useDb().transaction(async (trx) => {
+  return writeTransaction(async (trx) => {
     const now = new Date()
     const rows = await trx('mail_outbox')
       .where(q => q.where({ status: 'pending' }).andWhere('next_attempt_at', '<=', now))

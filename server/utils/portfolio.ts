@@ -3,10 +3,11 @@ import type { PortfolioQuery } from '#shared/schemas/portfolio'
 import type { PortfolioRow } from '#shared/types/portfolio'
 
 const SORT_COLUMNS = { updated: 's.updated_at', title: 's.title', status: 's.status', area: 's.summary_area_mm2', fails: 's.summary_fail_count' } as const
+const NULLABLE_SORTS = new Set<PortfolioQuery['sort']>(['area', 'fails'])
 
-/** The team's studies matching the filters (no paging); every portfolio query starts here. */
+/** The team's studies matching the filters (no paging, no join: every study has an owner). */
 export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 'status' | 'q'>) {
-  const query = db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId)
+  const query = db('studies as s').where('s.team_id', teamId)
   if (q.status !== 'all') query.where('s.status', q.status)
   if (q.q) {
     const like = `%${q.q.replace(/[\\%_]/g, c => `\\${c}`)}%`
@@ -15,16 +16,26 @@ export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 
   return query
 }
 
-/** One page (or, with `limit`, the first rows) sorted as asked, ties broken by id. */
+/** Sorted as asked, ties broken by id; studies without results last. */
+function sorted<T extends Knex.QueryBuilder>(query: T, q: PortfolioQuery): T {
+  // Only the nullable summary columns need the IS NULL term, and only ascending (MariaDB puts
+  // NULL last in descending order): without it the sort walks an index.
+  if (NULLABLE_SORTS.has(q.sort) && q.dir === 'asc') query.orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
+  return query.orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }]) as T
+}
+
+/**
+ * One page (or, with `limit`, the first rows). Late row lookup: the page's ids come from an index
+ * walk of `studies` alone, then only those rows are read and joined with their owners, so a deep
+ * page never reads the skipped rows' specs.
+ */
 export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit = q.pageSize, offset = (q.page - 1) * q.pageSize) {
-  return portfolioBase(db, teamId, q)
+  const page = sorted(portfolioBase(db, teamId, q).select('s.id'), q).limit(limit).offset(offset).as('page')
+  return sorted(db.from(page).join('studies as s', 's.id', 'page.id').join('users as u', 'u.id', 's.owner_id')
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
       's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
-      // open notes: threads neither resolved nor deleted
-      db('notes as n').whereRaw('n.study_id = s.id').whereNull('n.parent_id').whereNull('n.resolved_at').whereNull('n.deleted_at').count('*').as('open_notes'))
-    .orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
-    .orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
-    .limit(limit).offset(offset)
+      // open notes: threads neither resolved nor deleted (counted for the page's rows only)
+      db('notes as n').whereRaw('n.study_id = s.id').whereNull('n.parent_id').whereNull('n.resolved_at').whereNull('n.deleted_at').count('*').as('open_notes')), q)
 }
 
 /** Database row → the portfolio's shape. */

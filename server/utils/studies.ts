@@ -14,11 +14,22 @@ interface StudyRow {
   updated_at: Date
 }
 
+const STUDY_COLUMNS = ['s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.owner_id',
+  'u.display_name as owner_name', 's.created_at', 's.updated_at']
+
 /** Studies of one team with their owner's name: every study query starts here. */
 export function teamStudies(db: Knex, teamId: number) {
-  return db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId)
-    .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.owner_id',
-      'u.display_name as owner_name', 's.created_at', 's.updated_at')
+  return db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId).select(STUDY_COLUMNS)
+}
+
+/**
+ * One page of the team's studies, newest activity first. Late row lookup: the page's ids come
+ * from the (team_id, updated_at) index alone, then only those rows are read (see portfolioRows).
+ */
+export function teamStudiesPage(db: Knex, teamId: number, limit: number, offset: number) {
+  const order = [{ column: 's.updated_at', order: 'desc' }, { column: 's.id', order: 'desc' }]
+  const page = db('studies as s').where('s.team_id', teamId).select('s.id').orderBy(order).limit(limit).offset(offset).as('page')
+  return db.from(page).join('studies as s', 's.id', 'page.id').join('users as u', 'u.id', 's.owner_id').select(STUDY_COLUMNS).orderBy(order)
 }
 
 /** Row → API shape (JSON column parsed if the driver returned text). */

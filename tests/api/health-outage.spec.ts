@@ -3,7 +3,9 @@ import { startInstance, stopInstance } from '../support/mariadb'
 import { api, DEMO, signIn } from '../support/http'
 
 describe('database outage', () => {
-  it('reports 503 while MariaDB is down, fails requests fast with a clear message, and recovers by itself', async () => {
+  // Against an external database (the cluster run) there is no instance of ours to stop; the
+  // cluster run kills a node itself.
+  it.skipIf(!inject('databaseCnf'))('reports 503 while MariaDB is down, fails requests fast with a clear message, and recovers by itself', async () => {
     const cookie = await signIn(DEMO.engineer)
     expect((await api('/api/health')).body).toMatchObject({ app: 'ok', database: 'ok' })
     await stopInstance(inject('databaseCnf'))

@@ -10,15 +10,30 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
     databaseUrl: string
+    /** The database a second app instance uses: another cluster node in `npm run test:cluster`, else databaseUrl. */
+    databaseUrl2: string
+    /** The throwaway instance's option file; empty when the tests run against an external database. */
     databaseCnf: string
     mailDir: string
     mailPort: number
   }
 }
 
+/**
+ * An external database instead of a throwaway one, when RW_TEST_DATABASE_URL is set (the cluster
+ * run points it at Galera node 1 and RW_TEST_DATABASE_URL_2 at node 2); it is migrated and seeded
+ * like the throwaway one, and never stopped or deleted.
+ */
+async function useDatabase(): Promise<{ url: string, url2: string, cnf: string, destroy: () => Promise<void> }> {
+  const external = process.env.RW_TEST_DATABASE_URL
+  if (external) return { url: external, url2: process.env.RW_TEST_DATABASE_URL_2 || external, cnf: '', destroy: async () => undefined }
+  const database = await startTestDatabase()
+  return { url: database.url, url2: database.url, cnf: database.cnf, destroy: () => destroyTestDatabase(database) }
+}
+
 /** One throwaway MariaDB (migrated, demo-seeded) and one built app server for a test project. */
 export default async function setup(project: TestProject) {
-  const database = await startTestDatabase()
+  const database = await useDatabase()
   // The real migrate/seed script, exactly as `npm start` runs it.
   const root = fileURLToPath(new URL('../..', import.meta.url))
   for (const command of ['latest', 'seed']) {
@@ -34,12 +49,13 @@ export default async function setup(project: TestProject) {
   project.provide('mailPort', mailPort)
   project.provide('baseUrl', server.url)
   project.provide('databaseUrl', database.url)
+  project.provide('databaseUrl2', database.url2)
   project.provide('databaseCnf', database.cnf)
   return async () => {
     await stopAppServer(server)
     // A test may have restarted the catcher: stop it through its pid file, not the first child.
     await stopCatcher(mailDir, mailPort)
     rmSync(mailDir, { recursive: true, force: true })
-    await destroyTestDatabase(database)
+    await database.destroy()
   }
 }

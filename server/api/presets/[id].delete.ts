@@ -5,7 +5,7 @@ export default defineApiHandler(async (event) => {
   const user = await requireUser(event, ...LIBRARY_WRITER_ROLES)
   const { id } = paramsAs(event, idParamSchema)
   const { version } = queryAs(event, libraryDeleteQuerySchema)
-  await useDb().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     const row = await trx('process_presets').where({ id, team_id: user.teamId }).forUpdate().first('name', 'version')
     if (!row) throw notFound()
     if (version !== undefined && row.version !== version) {

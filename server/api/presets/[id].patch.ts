@@ -13,7 +13,7 @@ export default defineApiHandler(async (event): Promise<PresetDto> => {
     ...(body.process ? presetColumns(body.process) : {})
   }
   const db = useDb()
-  await withUniqueName('preset', body.name, () => db.transaction(async (trx) => {
+  await withUniqueName('preset', body.name, () => writeTransaction(async (trx) => {
     await updateVersioned(trx, 'process_presets', user.teamId, id, body.version, values)
     await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'preset_updated', targetType: 'process_preset', targetId: id, detail: { fromVersion: body.version, fields: Object.keys(values) } }, trx)
   }))

@@ -8,7 +8,7 @@ export default defineApiHandler(async (event): Promise<RulePackDto> => {
   const { id } = paramsAs(event, idParamSchema)
   const body = await readBodyAs(event, rulePackPatchSchema)
   const db = useDb()
-  await db.transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     const row = await trx('rule_packs').where({ id, team_id: user.teamId }).forUpdate().first()
     if (!row) throw rulePackNotFound()
     if (row.version !== body.version) {

@@ -6,7 +6,7 @@ export default defineApiHandler(async (event): Promise<RulePackDto> => {
   const user = await requireUser(event, ...RULE_PACK_WRITER_ROLES)
   const { pack, enabled } = await readBodyAs(event, rulePackCreateSchema)
   const db = useDb()
-  const id = await db.transaction(async (trx) => {
+  const id = await writeTransaction(async (trx) => {
     const taken = await trx('rule_packs').where({ team_id: user.teamId, pack_id: pack.id }).first('id')
     if (taken) throw rulePackConflict(`pack.id: your team already has a rule pack with id ${pack.id}; choose another id`)
     const [rowId] = await trx('rule_packs').insert({

@@ -6,7 +6,7 @@ export default defineApiHandler(async (event): Promise<StudyDto> => {
   const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
   const body = await readBodyAs(event, studyCreateSchema)
   const db = useDb()
-  const id = await db.transaction(async (trx) => {
+  const id = await writeTransaction(async (trx) => {
     const [studyId] = await trx('studies').insert({
       team_id: user.teamId, owner_id: user.id, title: body.title, block_name: body.blockName ?? null, spec: JSON.stringify(body.spec)
     })

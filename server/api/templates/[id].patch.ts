@@ -13,7 +13,7 @@ export default defineApiHandler(async (event): Promise<TemplateDto> => {
     ...(body.spec ? { spec: JSON.stringify(body.spec) } : {})
   }
   const db = useDb()
-  await withUniqueName('template', body.name, () => db.transaction(async (trx) => {
+  await withUniqueName('template', body.name, () => writeTransaction(async (trx) => {
     await updateVersioned(trx, 'spec_templates', user.teamId, id, body.version, values)
     await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'template_updated', targetType: 'spec_template', targetId: id, detail: { fromVersion: body.version, fields: Object.keys(values) } }, trx)
   }))

@@ -16,7 +16,7 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const body = await readBodyAs(event, revisionCreateSchema)
   const inputs = { spec: body.spec, process: body.process, options: body.options }
   const db = useDb()
-  const number = await db.transaction(async (trx) => {
+  const number = await writeTransaction(async (trx) => {
     const study = await teamStudyRow(trx, user.teamId, id, true)
     if (study.version !== body.baseVersion) {
       throw conflict(`baseVersion: revision ${study.version} was saved after the one you edited (${body.baseVersion}); reload the latest and apply your changes again`, study.version)

@@ -130,6 +130,10 @@ export default defineNuxtConfig({
       xContentTypeOptions: 'nosniff'
     },
     hidePoweredBy: true,
+    // A backstop above our own limits, which answer first with the field named: note attachments
+    // are refused over 10 MB by their route (multipart), JSON bodies stay far below 8 MB (a 16-bit
+    // string circuit is about 1.3 MB).
+    requestSizeLimiter: { maxRequestSizeInBytes: 8_000_000, maxUploadFileRequestInBytes: 12_000_000 },
     rateLimiter: false,
     xssValidator: false,
     csrf: false,

@@ -49,3 +49,8 @@ export function seriesExtremes(series: CodeSeries): { min: number | null, minCod
 export function logOrNull(v: number | null | undefined): number | null {
   return v !== null && v !== undefined && v > 0 ? Math.log10(v) : null
 }
+
+/** An axis value for its label: rounding noise around zero (|v| < 1e-9 of an LSB-scale axis) reads as 0. */
+export function tick(v: number): number {
+  return Math.abs(v) < 1e-9 ? 0 : v
+}

@@ -87,7 +87,8 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     await page.reload()
     await expect.poll(() => page.locator('#weight-glitch').inputValue(), { timeout: 20_000 }).toBe('6')
     await page.context().close()
-  })
+    // the whole journey (Monte Carlo, three saves, a reload) runs longer than the default test time on a busy machine
+  }, 300_000)
 
   it('opens a finding\'s handbook section, readable at 1280 and 390 px', async () => {
     const page = await signedIn(DEMO.architect, studyUrl)

@@ -10,7 +10,9 @@ export default defineNuxtConfig({
       title: 'Rungwise',
       htmlAttrs: { lang: 'en' },
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
-      meta: [{ name: 'viewport', content: 'width=device-width, initial-scale=1' }]
+      meta: [{ name: 'viewport', content: 'width=device-width, initial-scale=1' }],
+      // Before any module: keeps zod from probing eval, which the CSP refuses (public/zod-jitless.js).
+      script: [{ src: '/zod-jitless.js' }]
     }
   },
   css: ['@fontsource/lexend/400.css', '@fontsource/lexend/600.css', '~/assets/css/main.css'],

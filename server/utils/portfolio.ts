@@ -19,7 +19,7 @@ export function portfolioBase(db: Knex, teamId: number, q: Pick<PortfolioQuery, 
 export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit = q.pageSize, offset = (q.page - 1) * q.pageSize) {
   return portfolioBase(db, teamId, q)
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
-      's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count')
+      's.summary_candidate_id', 's.decision_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count')
     .orderByRaw(`${SORT_COLUMNS[q.sort]} IS NULL`)
     .orderBy([{ column: SORT_COLUMNS[q.sort], order: q.dir }, { column: 's.id', order: q.dir }])
     .limit(limit).offset(offset)
@@ -38,6 +38,7 @@ export function toPortfolioRow(row: Record<string, unknown>): PortfolioRow {
     owner: row.owner as string,
     revision: row.version as number,
     recommendedId: row.summary_candidate_id as string | null,
+    chosenId: row.decision_candidate_id as string | null,
     evaluated,
     areaMm2: row.summary_area_mm2 as number | null,
     areaBudgetMm2: spec.areaBudgetMm2 ?? null,

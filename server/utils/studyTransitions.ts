@@ -52,27 +52,32 @@ export async function giveVerdict(trx: Trx, user: SessionUser, id: number, body:
   return entryId!
 }
 
-async function checkDecisionBasis(trx: Trx, row: StatusRow, body: DecisionCreate): Promise<void> {
+async function checkDecisionBasis(trx: Trx, row: StatusRow, body: DecisionCreate): Promise<Parameters<typeof portfolioSummary>[0]> {
   if (body.revision !== row.version) throw invalidField('revision', `must be the current revision (${row.version})`)
   const revision = await trx('study_revisions').where({ study_id: row.id, number: row.version }).first('results')
-  const results = revision?.results ? json(revision.results) as { candidates?: { id: string }[] } : null
+  const results = revision?.results ? json(revision.results) as Parameters<typeof portfolioSummary>[0] : null
   if (!results) throw invalidField('revision', `revision ${row.version} has no saved results; save one with a Monte Carlo run first`)
   const ids = (results.candidates ?? []).map(c => c.id)
   if (!ids.includes(body.candidateId)) throw invalidField('candidateId', `must be one of the revision's candidates: ${ids.join(', ')}`)
   const signOffs = await trx('study_reviews').where({ study_id: row.id, kind: 'signed_off', revision_number: row.version }).whereIn('id', body.signOffIds).select('id')
-  if (signOffs.length !== new Set(body.signOffIds).size) throw invalidField('signOffIds', `must be sign-offs of this study on revision ${row.version}`)
+  if (signOffs.length !== new Set(body.signOffIds).size) {
+    throw invalidField('signOffIds', `must be sign-offs of this study on revision ${row.version}`)
+  }
+  return results
 }
 
 /** In review → decided: the chosen candidate, why, the revision and the sign-offs it rests on; mails the owner and reviewers. */
 export async function decide(trx: Trx, user: SessionUser, id: number, body: DecisionCreate): Promise<number> {
   const row = await lockStudyStatus(trx, user, id, body.statusVersion)
   requireStatus(row, 'recording a decision', 'in_review')
-  await checkDecisionBasis(trx, row, body)
+  const results = await checkDecisionBasis(trx, row, body)
+  // The portfolio's area and failing findings now describe the chosen candidate.
+  const chosen = portfolioSummary({ ...results, recommendedId: body.candidateId })
   const [decisionId] = await trx('study_decisions').insert({
     study_id: id, candidate_id: body.candidateId, rationale: body.rationale, revision_number: row.version,
     sign_off_ids: JSON.stringify([...new Set(body.signOffIds)]), decided_by: user.id
   })
-  await moveStatus(trx, row, { status: 'decided', decision_candidate_id: body.candidateId })
+  await moveStatus(trx, row, { status: 'decided', decision_candidate_id: body.candidateId, summary_area_mm2: chosen.areaMm2, summary_fail_count: chosen.failCount })
   const owner = await trx('users').where({ id: row.owner_id }).first('id', 'display_name as name', 'email')
   const recipients = new Map([owner, ...await roundReviewers(trx, id, await currentRound(trx, id))].map(p => [p.id, p]))
   for (const p of recipients.values()) {
@@ -94,7 +99,8 @@ export async function reopen(trx: Trx, user: SessionUser, id: number, statusVers
     results: decided.results, evaluation_id: decided.evaluation_id, note: `Reopened after the decision on revision ${row.version}`, author_id: user.id
   })
   await trx('study_decisions').where({ study_id: id }).whereNull('superseded_at').update({ superseded_at: trx.fn.now() })
-  await moveStatus(trx, row, { status: 'draft', version: next, decision_candidate_id: null })
+  const summary = decided.results ? portfolioSummary(json(decided.results)) : null
+  await moveStatus(trx, row, { status: 'draft', version: next, decision_candidate_id: null, summary_area_mm2: summary?.areaMm2 ?? null, summary_fail_count: summary?.failCount ?? null })
   await audit(trx, user, 'study.reopened', id, { fromRevision: row.version, revision: next })
   return next
 }

@@ -18,7 +18,7 @@ interface Results { candidates: EvaluateCandidate[], recommendedId?: string | nu
 export function specInWords(s: Spec): string[] {
   const load = `${f('f', s.loadCapacitanceF)}${s.loadResistanceOhm ? ` and ${f('ohm', s.loadResistanceOhm)}` : ''}`
   return [
-    `A ${s.bits}-bit DAC from a ${f('v', s.vrefV)} reference, updating at ${f('hz', s.updateRateHz)} into ${load}.`,
+    `${[8, 11, 18].includes(s.bits) ? 'An' : 'A'} ${s.bits}-bit DAC from a ${f('v', s.vrefV)} reference, updating at ${f('hz', s.updateRateHz)} into ${load}.`,
     `Accuracy: INL within ±${f('lsb', s.inlTargetLsb)} and DNL within ±${f('lsb', s.dnlTargetLsb)}, met by ${f('yield', s.yieldTarget)} of parts${s.monotonicRequired ? ', monotonic' : ''}.`,
     `Budgets: area up to ${f('mm2', s.areaBudgetMm2)}, glitch up to ${f('vs', s.glitchLimitVs)}, reference power up to ${f('w', s.powerBudgetW)}.`
   ]

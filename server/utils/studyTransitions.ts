@@ -5,6 +5,8 @@ import { decisionMail, reviewRequestMail } from '../mail/reviewTemplates'
 
 type Trx = Knex.Transaction
 const json = (v: unknown) => typeof v === 'string' ? JSON.parse(v) : v
+/** A JSON column as read (text or parsed, depending on the driver), written back as text. */
+const again = (v: unknown) => typeof v === 'string' ? v : JSON.stringify(v)
 const mayActOnAny = (user: SessionUser) => user.role === 'architect' || user.role === 'admin'
 
 async function moveStatus(trx: Trx, row: StatusRow, changes: Record<string, unknown>): Promise<void> {
@@ -95,8 +97,8 @@ export async function reopen(trx: Trx, user: SessionUser, id: number, statusVers
   const decided = await trx('study_revisions').where({ study_id: id, number: row.version }).first()
   const next = row.version + 1
   await trx('study_revisions').insert({
-    study_id: id, number: next, spec: decided.spec, process: decided.process, options: decided.options, engine_version: decided.engine_version,
-    results: decided.results, evaluation_id: decided.evaluation_id, note: `Reopened after the decision on revision ${row.version}`, author_id: user.id
+    study_id: id, number: next, spec: again(decided.spec), process: again(decided.process), options: again(decided.options), engine_version: decided.engine_version,
+    results: decided.results === null ? null : again(decided.results), evaluation_id: decided.evaluation_id, note: `Reopened after the decision on revision ${row.version}`, author_id: user.id
   })
   await trx('study_decisions').where({ study_id: id }).whereNull('superseded_at').update({ superseded_at: trx.fn.now() })
   const summary = decided.results ? portfolioSummary(json(decided.results)) : null

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex'
 import { LIBRARY_ROWS } from './authorization-library'
+import { REVIEW_ROWS } from './authorization-review'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
 
 /** Kinds of caller: no session, each role of the demo team, and an admin of another team. */
@@ -74,6 +75,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   },
   ...RULE_PACK_ROWS,
   ...LIBRARY_ROWS,
+  ...REVIEW_ROWS,
   { route: 'GET /api/team', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
   {
     route: 'POST /api/team/invitations',

@@ -79,8 +79,9 @@ describe('review journey: draft → review → sign-off → decision → brief',
     await page.getByLabel('Why this candidate').fill('Meets every target with the smallest area; the review found no open risk.')
     await page.getByTestId('record-decision').click()
     await page.getByTestId('decision-banner').waitFor()
-    expect(await page.getByTestId('save-revision').count()).toBe(0)
-    expect(await field(page, 'Reference voltage').isEditable()).toBe(false)
+    // The study reloads after the decision: the save bar goes and the inputs become read-only.
+    await expect.poll(() => page.getByTestId('save-revision').count()).toBe(0)
+    await expect.poll(() => field(page, 'Reference voltage').isEditable()).toBe(false)
     await shoot(page, 'review-decided-1280')
     await page.context().close()
     // The decision mail reaches the owner and the reviewer, once each.

@@ -3,7 +3,7 @@ import { escapeHtml } from '@vue/shared'
 /** A rendered message: plain text and HTML parts of the same content. */
 export interface MailContent { subject: string, text: string, html: string }
 
-function layout(title: string, paragraphs: string[], action?: { label: string, url: string }): string {
+export function layout(title: string, paragraphs: string[], action?: { label: string, url: string }): string {
   const body = paragraphs.map(p => `<p style="margin:0 0 12px">${escapeHtml(p)}</p>`).join('')
   const button = action
     ? `<p style="margin:20px 0"><a href="${escapeHtml(action.url)}" style="background:#12323A;color:#F6F4EE;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(action.label)}</a></p><p style="font-size:12px;color:#5B6B70">Or open ${escapeHtml(action.url)}</p>`
@@ -11,7 +11,7 @@ function layout(title: string, paragraphs: string[], action?: { label: string, u
   return `<!doctype html><html><body style="font-family:Lexend,Arial,sans-serif;color:#12323A;background:#F6F4EE;padding:24px"><div style="max-width:560px;margin:auto;background:#FFFFFF;border:1px solid #D9D4C7;border-radius:8px;padding:24px"><h1 style="font-size:18px;margin:0 0 16px">${escapeHtml(title)}</h1>${body}${button}<p style="font-size:12px;color:#5B6B70;margin-top:24px">Sent by Rungwise for your team.</p></div></body></html>`
 }
 
-function text(paragraphs: string[], action?: { label: string, url: string }): string {
+export function text(paragraphs: string[], action?: { label: string, url: string }): string {
   return [...paragraphs, ...(action ? [`${action.label}: ${action.url}`] : []), '—', 'Sent by Rungwise for your team.'].join('\n\n')
 }
 

@@ -33,7 +33,7 @@ export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit
   const page = sorted(portfolioBase(db, teamId, q).select('s.id'), q).limit(limit).offset(offset).as('page')
   return sorted(db.from(page).join('studies as s', 's.id', 'page.id').join('users as u', 'u.id', 's.owner_id')
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
-      's.summary_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
+      's.summary_candidate_id', 's.decision_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
       // open notes: threads neither resolved nor deleted (counted for the page's rows only)
       db('notes as n').whereRaw('n.study_id = s.id').whereNull('n.parent_id').whereNull('n.resolved_at').whereNull('n.deleted_at').count('*').as('open_notes')), q)
 }
@@ -51,6 +51,7 @@ export function toPortfolioRow(row: Record<string, unknown>): PortfolioRow {
     owner: row.owner as string,
     revision: row.version as number,
     recommendedId: row.summary_candidate_id as string | null,
+    chosenId: row.decision_candidate_id as string | null,
     evaluated,
     areaMm2: row.summary_area_mm2 as number | null,
     areaBudgetMm2: spec.areaBudgetMm2 ?? null,

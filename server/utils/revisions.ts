@@ -1,6 +1,7 @@
 import type { Knex } from 'knex'
 import { evaluateInputSchema, type EvaluateOutput } from '#shared/core/contract/evaluate'
 import type { RevisionDto, RevisionSummaryDto } from '#shared/types/revisions'
+import type { StudyStatus } from '#shared/types/studies'
 import { canonicalJson } from '#shared/utils/revisionDiff'
 
 const json = (v: unknown) => typeof v === 'string' ? JSON.parse(v) : v
@@ -31,9 +32,9 @@ export function toRevisionDto(row: RevisionRow): RevisionDto {
 }
 
 /** The team's study (404 otherwise), locked for the rest of the transaction when `lock`. */
-export async function teamStudyRow(db: Knex | Knex.Transaction, teamId: number, id: number, lock = false): Promise<{ id: number, version: number }> {
+export async function teamStudyRow(db: Knex | Knex.Transaction, teamId: number, id: number, lock = false): Promise<{ id: number, version: number, status: StudyStatus }> {
   const query = db('studies').where({ id, team_id: teamId })
-  const row = await (lock ? query.forUpdate() : query).first('id', 'version')
+  const row = await (lock ? query.forUpdate() : query).first('id', 'version', 'status')
   if (!row) throw notFound()
   return row
 }

@@ -8,13 +8,14 @@ interface StudyRow {
   status: StudyDto['status']
   spec: StudyDto['spec'] | string
   version: number
+  status_version: number
   owner_id: number
   owner_name: string
   created_at: Date
   updated_at: Date
 }
 
-const STUDY_COLUMNS = ['s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.owner_id',
+const STUDY_COLUMNS = ['s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.status_version', 's.owner_id',
   'u.display_name as owner_name', 's.created_at', 's.updated_at']
 
 /** Studies of one team with their owner's name: every study query starts here. */
@@ -41,6 +42,7 @@ export function toStudyDto(row: StudyRow): StudyDto {
     status: row.status,
     spec: typeof row.spec === 'string' ? JSON.parse(row.spec) : row.spec,
     version: row.version,
+    statusVersion: row.status_version,
     owner: { id: row.owner_id, name: row.owner_name },
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString()

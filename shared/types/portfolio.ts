@@ -11,7 +11,10 @@ export interface PortfolioRow {
   revision: number
   /** the recommended option of the head revision's results (null: none meets spec, or not evaluated) */
   recommendedId: string | null
+  /** the candidate chosen by the decision in force (decided and archived studies), else null */
+  chosenId: string | null
   evaluated: boolean
+  /** total area of the chosen candidate when decided, else of the recommended one */
   areaMm2: number | null
   areaBudgetMm2: number | null
   failCount: number | null

@@ -11,6 +11,8 @@ export interface StudyDto {
   status: StudyStatus
   spec: StudySpec
   version: number
+  /** counts status changes; a status change names it and gets 409 when stale */
+  statusVersion: number
   owner: { id: number, name: string }
   createdAt: string
   updatedAt: string

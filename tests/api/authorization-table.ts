@@ -2,6 +2,7 @@ import type { Knex } from 'knex'
 import { IO_ROWS } from './authorization-io'
 import { LIBRARY_ROWS } from './authorization-library'
 import { NOTE_ROWS } from './authorization-notes'
+import { REVIEW_ROWS } from './authorization-review'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
 
 /** Kinds of caller: no session, each role of the demo team, and an admin of another team. */
@@ -78,6 +79,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   ...LIBRARY_ROWS,
   ...NOTE_ROWS,
   ...IO_ROWS,
+  ...REVIEW_ROWS,
   { route: 'GET /api/team', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
   {
     route: 'POST /api/team/invitations',

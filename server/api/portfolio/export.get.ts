@@ -9,8 +9,8 @@ export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const q = queryAs(event, portfolioQuerySchema)
   const rows = (await portfolioRows(useDb(), user.teamId, q, MAX_EXPORT_ROWS, 0)).map(toPortfolioRow)
-  const header = ['id', 'title', 'block', 'status', 'bits', 'owner', 'revision', 'recommended', 'area_mm2', 'area_budget_mm2', 'failing_findings', 'candidates_meeting_spec', 'candidates', 'open_notes', 'last_activity_utc']
-  const body = rows.map(r => [r.id, r.title, r.blockName, r.status, r.bits, r.owner, r.revision, r.recommendedId, r.areaMm2, r.areaBudgetMm2, r.failCount, r.meetingCount, r.candidateCount, r.openNotes, r.lastActivityAt].map(csvCell))
+  const header = ['id', 'title', 'block', 'status', 'bits', 'owner', 'revision', 'recommended', 'area_mm2', 'area_budget_mm2', 'failing_findings', 'candidates_meeting_spec', 'candidates', 'open_notes', 'last_activity_utc', 'chosen']
+  const body = rows.map(r => [r.id, r.title, r.blockName, r.status, r.bits, r.owner, r.revision, r.recommendedId, r.areaMm2, r.areaBudgetMm2, r.failCount, r.meetingCount, r.candidateCount, r.openNotes, r.lastActivityAt, r.chosenId].map(csvCell))
   setResponseHeader(event, 'content-type', 'text/csv; charset=utf-8')
   setResponseHeader(event, 'content-disposition', `attachment; filename="rungwise-portfolio-${new Date().toISOString().slice(0, 10)}.csv"`)
   return stringify([header, ...body])

@@ -9,6 +9,7 @@ import type { RevisionDto } from '#shared/types/revisions'
  * Saves the next immutable revision of a study in one transaction. 409 (with the current version
  * in `data.currentVersion`) when `baseVersion` is not the study's version: someone saved first.
  * The ranking weights are kept with the revision (the defaults when the body has none).
+ * 423 when the study is decided or archived (read-only until reopened).
  */
 export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
@@ -18,6 +19,7 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const db = useDb()
   const number = await writeTransaction(async (trx) => {
     const study = await teamStudyRow(trx, user.teamId, id, true)
+    assertEditable(study.status)
     if (study.version !== body.baseVersion) {
       throw conflict(`baseVersion: revision ${study.version} was saved after the one you edited (${body.baseVersion}); reload the latest and apply your changes again`, study.version)
     }

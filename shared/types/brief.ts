@@ -1,0 +1,26 @@
+import type { StudyStatus } from './studies'
+
+/** One line of "area and risk against the spec" for the chosen (or recommended) candidate. */
+export interface BriefLine { label: string, value: string, target: string, meets: boolean | null }
+
+/** The one-page summary of a study, in plain words (the page and the PDF read the same). */
+export interface BriefDto {
+  study: { id: number, title: string, blockName: string | null, owner: string, status: StudyStatus, revision: number }
+  /** what was asked: the spec in sentences */
+  asked: string[]
+  evaluated: boolean
+  decision: { candidateId: string, label: string, rationale: string, decidedBy: string, decidedAt: string, revision: number } | null
+  recommendation: { candidateId: string, label: string, reasons: string[] } | null
+  /** the candidate the lines describe: the decided one, else the recommended one */
+  subject: { candidateId: string, label: string, basis: 'decision' | 'recommendation', lines: BriefLine[] } | null
+  topFindings: { severity: string, title: string, label: string }[]
+  open: {
+    /** failing and risk findings of the subject candidate */
+    unresolved: { severity: string, title: string }[]
+    /** open notes: null until the notes feature reports them */
+    openNotes: number | null
+  }
+  signOffs: { name: string, revision: number, at: string, comment: string | null }[]
+  caution: string
+  generatedAt: string
+}

@@ -44,12 +44,14 @@ async function loadParts(db: Knex, user: SessionUser, id: number) {
     .orderBy('d.id', 'desc').first('d.candidate_id', 'd.rationale', 'd.revision_number', 'd.sign_off_ids', 'u.display_name', 'd.created_at')
   const signOffs = await db('study_reviews as r').join('users as u', 'u.id', 'r.reviewer_id').where({ 'r.study_id': id, 'r.kind': 'signed_off', 'r.revision_number': study.version })
     .orderBy('r.id').select('u.display_name', 'r.revision_number', 'r.created_at', 'r.comment')
-  return { study: toStudyDto(study), spec: (head ? json(head.spec) : json(study.spec)) as Spec, results: (head?.results ? json(head.results) : null) as Results | null, decision, signOffs }
+  // open threads: neither resolved nor deleted (as the portfolio counts them)
+  const [{ n: openNotes }] = await db('notes').where({ study_id: id }).whereNull('parent_id').whereNull('resolved_at').whereNull('deleted_at').count({ n: '*' })
+  return { study: toStudyDto(study), spec: (head ? json(head.spec) : json(study.spec)) as Spec, results: (head?.results ? json(head.results) : null) as Results | null, decision, signOffs, openNotes: Number(openNotes) }
 }
 
 /** The brief of a study of the caller's team (404 otherwise). */
 export async function studyBrief(db: Knex, user: SessionUser, id: number): Promise<BriefDto> {
-  const { study, spec, results, decision, signOffs } = await loadParts(db, user, id)
+  const { study, spec, results, decision, signOffs, openNotes } = await loadParts(db, user, id)
   const byId = (cid: string | null | undefined) => (cid ? results?.candidates.find(c => c.id === cid) : undefined)
   const label = (cid: string) => {
     const c = byId(cid)
@@ -70,7 +72,7 @@ export async function studyBrief(db: Knex, user: SessionUser, id: number): Promi
     recommendation: recId ? { candidateId: recId, label: label(recId), reasons: results?.recommendation?.reasons ?? [] } : null,
     subject: subject ? { candidateId: subject.id, label: candidateLabel(subject), basis: decision ? 'decision' : 'recommendation', lines: lines(subject, spec) } : null,
     topFindings: findings.slice(0, 3).map(x => ({ severity: x.severity, title: x.title, label: label(x.candidateId) })),
-    open: { unresolved: findings.filter(x => x.severity === 'fail' || x.severity === 'warn').map(x => ({ severity: x.severity, title: x.title })), openNotes: null },
+    open: { unresolved: findings.filter(x => x.severity === 'fail' || x.severity === 'warn').map(x => ({ severity: x.severity, title: x.title })), openNotes },
     signOffs: signOffs.map(s => ({ name: s.display_name, revision: s.revision_number, at: new Date(s.created_at).toISOString(), comment: s.comment })),
     caution: BRIEF_CAUTION,
     generatedAt: new Date().toISOString()

@@ -45,8 +45,9 @@ async function loadParts(db: Knex, user: SessionUser, id: number) {
   const signOffs = await db('study_reviews as r').join('users as u', 'u.id', 'r.reviewer_id').where({ 'r.study_id': id, 'r.kind': 'signed_off', 'r.revision_number': study.version })
     .orderBy('r.id').select('u.display_name', 'r.revision_number', 'r.created_at', 'r.comment')
   // open threads: neither resolved nor deleted (as the portfolio counts them)
-  const [{ n: openNotes }] = await db('notes').where({ study_id: id }).whereNull('parent_id').whereNull('resolved_at').whereNull('deleted_at').count({ n: '*' })
-  return { study: toStudyDto(study), spec: (head ? json(head.spec) : json(study.spec)) as Spec, results: (head?.results ? json(head.results) : null) as Results | null, decision, signOffs, openNotes: Number(openNotes) }
+  const counted = await db('notes').where({ study_id: id }).whereNull('parent_id').whereNull('resolved_at').whereNull('deleted_at').count({ n: '*' }).first()
+  const openNotes = Number(counted?.n ?? 0)
+  return { study: toStudyDto(study), spec: (head ? json(head.spec) : json(study.spec)) as Spec, results: (head?.results ? json(head.results) : null) as Results | null, decision, signOffs, openNotes }
 }
 
 /** The brief of a study of the caller's team (404 otherwise). */

@@ -19,7 +19,7 @@ const STUDY_COLUMNS = ['s.id', 's.title', 's.block_name', 's.status', 's.spec', 
   'u.display_name as owner_name', 's.created_at', 's.updated_at']
 
 /** Studies of one team with their owner's name: every study query starts here. */
-export function teamStudies(db: Knex, teamId: number) {
+export function teamStudies(db: Knex | Knex.Transaction, teamId: number) {
   return db('studies as s').join('users as u', 'u.id', 's.owner_id').where('s.team_id', teamId).select(STUDY_COLUMNS)
 }
 

@@ -16,8 +16,9 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const { id } = paramsAs(event, idParamSchema)
   const body = await readBodyAs(event, revisionCreateSchema)
   const inputs = { spec: body.spec, process: body.process, options: body.options }
-  const db = useDb()
-  const number = await writeTransaction(async (trx) => {
+  // The answer is read inside the transaction: a client never gets an error for a saved revision
+  // because a second connection was not to be had after the commit.
+  const row = await writeTransaction(async (trx) => {
     const study = await teamStudyRow(trx, user.teamId, id, true)
     assertEditable(study.status)
     if (study.version !== body.baseVersion) {
@@ -39,9 +40,8 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
       summary_candidate_count: summary?.candidateCount ?? null
     })
     await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'revision_saved', targetType: 'study', targetId: id, detail: { number: next, withResults: Boolean(evaluated) } }, trx)
-    return next
+    return await studyRevisions(trx, id, true).where('r.number', next).first()
   })
-  const row = await studyRevisions(db, id, true).where('r.number', number).first()
   setResponseStatus(event, 201)
   return toRevisionDto(row)
 })

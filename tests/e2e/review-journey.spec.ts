@@ -62,7 +62,7 @@ describe('review journey: draft → review → sign-off → decision → brief',
     await shoot(page, 'review-requested-1280')
     await page.context().close()
     await expect.poll(() => mailCount(DEMO.architect, `Review requested: ${TITLE}`), { timeout: 20_000 }).toBe(1)
-  })
+  }, 240_000) // a Monte Carlo run on a shared machine
 
   it('architect: signs off with a comment', async () => {
     const page = await signedIn(DEMO.architect, studyUrl)

@@ -32,9 +32,9 @@ export function toRevisionDto(row: RevisionRow): RevisionDto {
 }
 
 /** The team's study (404 otherwise), locked for the rest of the transaction when `lock`. */
-export async function teamStudyRow(db: Knex | Knex.Transaction, teamId: number, id: number, lock = false): Promise<{ id: number, version: number, status: StudyStatus }> {
+export async function teamStudyRow(db: Knex | Knex.Transaction, teamId: number, id: number, lock = false): Promise<{ id: number, version: number, status: StudyStatus, owner_id: number }> {
   const query = db('studies').where({ id, team_id: teamId })
-  const row = await (lock ? query.forUpdate() : query).first('id', 'version', 'status')
+  const row = await (lock ? query.forUpdate() : query).first('id', 'version', 'status', 'owner_id')
   if (!row) throw notFound()
   return row
 }
@@ -57,4 +57,11 @@ export async function evaluationResults(trx: Knex.Transaction, teamId: number, e
     throw invalidEvaluation('was computed for other inputs than the ones being saved; run it again')
   }
   return { results: json(row.result), engineVersion: row.engine_version }
+}
+
+/** Engineers edit their own studies; architects and admins edit every study of the team. */
+export function assertMayEditStudy(user: { id: number, role: string }, study: { owner_id: number }): void {
+  if (user.role !== 'engineer' || study.owner_id === user.id) return
+  const message = 'Engineers edit their own studies; ask the owner or an architect to save this one, or write a note'
+  throw createError({ statusCode: 403, statusMessage: MESSAGES.forbidden, message, data: { message } })
 }

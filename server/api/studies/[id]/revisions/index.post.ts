@@ -9,7 +9,8 @@ import type { RevisionDto } from '#shared/types/revisions'
  * Saves the next immutable revision of a study in one transaction. 409 (with the current version
  * in `data.currentVersion`) when `baseVersion` is not the study's version: someone saved first.
  * The ranking weights are kept with the revision (the defaults when the body has none).
- * 423 when the study is decided or archived (read-only until reopened).
+ * 423 when the study is decided or archived (read-only until reopened); 403 for an engineer who
+ * does not own the study.
  */
 export default defineApiHandler(async (event): Promise<RevisionDto> => {
   const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
@@ -20,6 +21,7 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
   // because a second connection was not to be had after the commit.
   const row = await writeTransaction(async (trx) => {
     const study = await teamStudyRow(trx, user.teamId, id, true)
+    assertMayEditStudy(user, study)
     assertEditable(study.status)
     if (study.version !== body.baseVersion) {
       throw conflict(`baseVersion: revision ${study.version} was saved after the one you edited (${body.baseVersion}); reload the latest and apply your changes again`, study.version)

@@ -15,6 +15,21 @@ export interface FuzzFixtures {
   packId: string
   jobId: number
   invitationToken: string
+  /** a note by the admin on studyId (edited, resolved, reopened) and one the DELETE row may remove */
+  noteId: number
+  deleteNoteId: number
+  attachmentId: number
+  /** a study of the admin's team whose revision 1 has results for candidate r2r-voltage, with one bench row */
+  ioStudyId: number
+  benchId: number
+  /** review fixtures: a draft, one in review (the demo architect assigned), one also signed off, two decided */
+  draftStudyId: number
+  inReviewStudyId: number
+  signedOffStudyId: number
+  signOffId: number
+  decidedStudyId: number
+  archiveStudyId: number
+  architectId: number
 }
 
 export interface FuzzSample {
@@ -25,7 +40,7 @@ export interface FuzzSample {
 
 export interface FuzzRow {
   route: string
-  as: 'admin' | 'signedOut'
+  as: 'admin' | 'architect' | 'signedOut'
   sample: (f: FuzzFixtures) => FuzzSample | Promise<FuzzSample>
   /** tables compared with CHECKSUM TABLE before and after every refused request */
   tables: string[]
@@ -53,6 +68,17 @@ async function revisionBody(f: FuzzFixtures) {
 async function packVersion(f: FuzzFixtures): Promise<number> {
   return (await f.db('rule_packs').where({ id: f.packRowId }).first('version')).version
 }
+
+const NOTE_TABLES = ['notes', 'note_mentions', 'note_attachments', 'audit_log']
+const REVIEW_TABLES = ['studies', 'study_reviews', 'study_decisions', 'audit_log']
+/** mail_outbox is left out: the delivery worker updates rows queued by an earlier accepted request at any time. */
+const statusVersion = async (f: FuzzFixtures, studyId: number) => (await f.db('studies').where({ id: studyId }).first('status_version')).status_version as number
+const noteVersion = async (f: FuzzFixtures) => (await f.db('notes').where({ id: f.noteId }).first('version')).version as number
+const IMPORT_CSV = `title,bits,vrefV,updateRateHz,loadCapacitanceF,inlTargetLsb,dnlTargetLsb,yieldTarget,areaBudgetMm2,glitchLimitVs,powerBudgetW,sheetOhmPerSq,matchingPctUm,matchingConvention
+Fuzz import,8,2.5 V,1 MS/s,1 pF,0.5,0.5,99 %,0.05,100 pV·s,1 mW,1 kΩ,1 %·µm,pair
+`
+/** An ideal 4-bit transfer: the fuzzer's input, not a checked result (io-bench.spec.ts checks the numbers). */
+const BENCH_CSV = `code,voltage\n${Array.from({ length: 16 }, (_, k) => `${k},${k / 16}`).join('\n')}\n`
 
 const PORTFOLIO_QUERY = { page: '1', pageSize: '25', status: 'all', q: 'demo', sort: 'updated', dir: 'desc' }
 
@@ -95,5 +121,47 @@ export const FUZZ_TABLE: FuzzRow[] = [
   { route: 'POST /api/invitations/:token/accept', as: 'signedOut', sample: f => ({ params: { token: f.invitationToken }, body: { password: 'a-long-enough-password' } }), tables: ['invitations', 'users', 'audit_log'] },
   { route: 'GET /api/admin/mail', as: 'admin', sample: () => ({}), tables: [] },
   { route: 'GET /api/portfolio', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [] },
-  { route: 'GET /api/portfolio/export', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [], weight: 0.5 }
+  { route: 'GET /api/portfolio/export', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [], weight: 0.5 },
+
+  // notes and attachments
+  { route: 'GET /api/studies/:id/notes', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'POST /api/studies/:id/notes', as: 'admin', sample: f => ({ params: id(f.studyId), body: { body: 'Fuzz note with **bold** and @architect' } }), tables: NOTE_TABLES },
+  { route: 'PATCH /api/notes/:id', as: 'admin', sample: async f => ({ params: id(f.noteId), body: { version: await noteVersion(f), body: 'Fuzz edit' } }), tables: NOTE_TABLES },
+  { route: 'DELETE /api/notes/:id', as: 'admin', sample: f => ({ params: id(f.deleteNoteId) }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/resolve', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/reopen', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
+  {
+    // Multipart only: the harness sends JSON bodies, so every body mutation must get a 4xx (411/413/415/400)
+    // and leave the tables alone; the path parameter is fuzzed as for any route. The accepted upload
+    // itself is covered by notes-attachments specs and the authorization matrix.
+    route: 'POST /api/notes/:id/attachments', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES
+  },
+  { route: 'GET /api/attachments/:id', as: 'admin', sample: f => ({ params: id(f.attachmentId) }), tables: [] },
+
+  // imports, exports and bench data
+  { route: 'POST /api/studies/import/preview', as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv' } }), tables: STUDY_TABLES, weight: 0.5 },
+  { route: 'POST /api/studies/import', as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv', fileName: 'fuzz.csv' } }), tables: STUDY_TABLES, weight: 0.5 },
+  { route: 'GET /api/studies/:id/export', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/comparison', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/netlist', as: 'admin', sample: f => ({ params: id(f.ioStudyId), query: { candidate: 'r2r-voltage', seed: '1', index: '0' } }), tables: [] },
+  { route: 'GET /api/studies/:id/bench', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'POST /api/studies/:id/bench', as: 'admin', sample: f => ({ params: id(f.ioStudyId), body: { candidateId: 'r2r-voltage', fileName: 'fuzz.csv', text: BENCH_CSV } }), tables: ['bench_measurements', 'audit_log'], weight: 0.5 },
+  { route: 'GET /api/studies/:id/bench/:benchId', as: 'admin', sample: f => ({ params: { id: String(f.ioStudyId), benchId: String(f.benchId) } }), tables: [] },
+
+  // review, decision, activity and the brief
+  { route: 'GET /api/studies/:id/review', as: 'admin', sample: f => ({ params: id(f.inReviewStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/activity', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/brief', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/brief.pdf', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [], weight: 0.25 },
+  { route: 'POST /api/studies/:id/review-request', as: 'admin', sample: async f => ({ params: id(f.draftStudyId), body: { statusVersion: await statusVersion(f, f.draftStudyId), reviewerIds: [f.architectId] } }), tables: REVIEW_TABLES },
+  // Only the assigned architect gives a verdict (an admin gets 403), so this row calls as the demo architect.
+  { route: 'POST /api/studies/:id/reviews', as: 'architect', sample: async f => ({ params: id(f.inReviewStudyId), body: { statusVersion: await statusVersion(f, f.inReviewStudyId), verdict: 'signed_off', comment: 'Fuzz sign-off' } }), tables: REVIEW_TABLES },
+  {
+    route: 'POST /api/studies/:id/decision',
+    as: 'admin',
+    sample: async f => ({ params: id(f.signedOffStudyId), body: { statusVersion: await statusVersion(f, f.signedOffStudyId), candidateId: 'r2r-voltage', rationale: 'Fuzz decision', revision: 1, signOffIds: [f.signOffId] } }),
+    tables: [...REVIEW_TABLES, 'study_revisions']
+  },
+  { route: 'POST /api/studies/:id/reopen', as: 'admin', sample: async f => ({ params: id(f.decidedStudyId), body: { statusVersion: await statusVersion(f, f.decidedStudyId) } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/archive', as: 'admin', sample: async f => ({ params: id(f.archiveStudyId), body: { statusVersion: await statusVersion(f, f.archiveStudyId) } }), tables: REVIEW_TABLES }
 ]

@@ -21,6 +21,7 @@ const REQUEST_BOUND_MS = 20_000
 
 let db: Knex
 let adminCookie = ''
+let architectCookie = ''
 let attemptsBefore = 0
 const f = {} as FuzzFixtures
 
@@ -28,6 +29,7 @@ beforeAll(async () => {
   console.info(`[fuzz] seed ${SEED}, ${RUNS} runs per route (FUZZ_SEED / FUZZ_RUNS to change)`)
   db = testDb()
   adminCookie = await signIn(DEMO.admin)
+  architectCookie = await signIn(DEMO.architect)
   attemptsBefore = Number((await db('sign_in_attempts').max({ id: 'id' }))[0]?.id ?? 0)
   const study = await api<{ id: number }>('/api/studies', { method: 'POST', cookie: adminCookie, body: { title: 'Fuzz study', spec: SPEC } })
   f.studyId = study.body.id
@@ -43,7 +45,48 @@ beforeAll(async () => {
   f.invitationToken = randomBytes(32).toString('base64url')
   await db('invitations').insert({ team_id: admin.team_id, email: `fuzz-accept-${Date.now()}@invite.example`, display_name: 'Fuzz Accept', role: 'engineer', token_hash: createHash('sha256').update(f.invitationToken).digest('hex'), expires_at: new Date(Date.now() + 3_600_000), invited_by: admin.id })
   f.db = db
+  await notesAndReviewFixtures(admin)
 })
+
+/** Arbitrary metric values in the output contract's shape (fixtures for reads and bench uploads, not physics). */
+function fixtureResults(candidateId: string) {
+  const series = { codes: [0], min: [0], max: [0] }
+  return { engineVersion: 'fuzz', candidates: [{ id: candidateId, topology: candidateId, unaryBits: null, metrics: { resistorCount: 9, totalAreaMm2: 0.01 }, meetsSpec: true, failing: [], linearity: { definition: 'endpoint', monteCarlo: null }, glitch: { perTransition: series }, reference: { irefA: series, rinOhm: series }, output: { routOhm: series } }], cautions: [] }
+}
+
+async function notesAndReviewFixtures(admin: { id: number, team_id: number }) {
+  const note = async (body: string) => {
+    const res = await api<{ id: number }>(`/api/studies/${f.studyId}/notes`, { method: 'POST', cookie: adminCookie, body: { body } })
+    expect(res.status).toBe(201)
+    return res.body.id
+  }
+  f.noteId = await note('Fuzz note')
+  f.deleteNoteId = await note('Fuzz note to delete')
+  const data = Buffer.from('code,volts\n0,0\n')
+  f.attachmentId = (await db('note_attachments').insert({ team_id: admin.team_id, note_id: f.noteId, filename: 'fuzz.csv', mime_type: 'text/csv', size_bytes: data.length, sha256: createHash('sha256').update(data).digest('hex'), data, uploaded_by: admin.id }))[0]!
+  const engineer = await db('users').where({ email: DEMO.engineer }).first('id')
+  f.architectId = (await db('users').where({ email: DEMO.architect }).first('id')).id
+  const bits4 = { ...SPEC, bits: 4, vrefV: 1 }
+  const studyAt = async (title: string, status: 'draft' | 'in_review' | 'decided') => {
+    const [id] = await db('studies').insert({ team_id: admin.team_id, owner_id: engineer.id, title, spec: JSON.stringify(bits4), status, version: 1 })
+    await db('study_revisions').insert({
+      study_id: id, number: 1, spec: JSON.stringify(bits4), process: JSON.stringify({ sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }),
+      options: JSON.stringify({ topologies: ['r2r-voltage'], trials: 0, seed: 1, inlDefinition: 'endpoint', envelopePoints: 256, confidence: 0.95 }),
+      engine_version: 'fuzz', results: JSON.stringify(fixtureResults('r2r-voltage')), author_id: engineer.id
+    })
+    return id!
+  }
+  f.ioStudyId = await studyAt('Fuzz io study', 'draft')
+  f.benchId = (await db('bench_measurements').insert({ team_id: admin.team_id, study_id: f.ioStudyId, candidate_id: 'r2r-voltage', revision_number: 1, uploaded_by: engineer.id, file_name: 'fuzz.csv', quantity: 'voltage', bits: 4, points: JSON.stringify(Array.from({ length: 16 }, (_, k) => k / 16)), summary: JSON.stringify({}) }))[0]!
+  f.draftStudyId = await studyAt('Fuzz review draft', 'draft')
+  f.inReviewStudyId = await studyAt('Fuzz in review', 'in_review')
+  await db('study_reviews').insert({ study_id: f.inReviewStudyId, round: 1, kind: 'assigned', reviewer_id: f.architectId, revision_number: 1, created_by: engineer.id })
+  f.signedOffStudyId = await studyAt('Fuzz signed off', 'in_review')
+  await db('study_reviews').insert({ study_id: f.signedOffStudyId, round: 1, kind: 'assigned', reviewer_id: f.architectId, revision_number: 1, created_by: engineer.id })
+  f.signOffId = (await db('study_reviews').insert({ study_id: f.signedOffStudyId, round: 1, kind: 'signed_off', reviewer_id: f.architectId, revision_number: 1, created_by: f.architectId }))[0]!
+  f.decidedStudyId = await studyAt('Fuzz decided (reopen)', 'decided')
+  f.archiveStudyId = await studyAt('Fuzz decided (archive)', 'decided')
+}
 
 afterAll(async () => {
   // The login row's refused attempts count against 127.0.0.1; later spec files sign in from there too.
@@ -95,7 +138,7 @@ describe(`fuzzing every API route (seed ${SEED})`, () => {
   for (const row of FUZZ_TABLE) {
     it(`${row.route}: 2xx or 4xx, a named field on 400, nothing written when refused`, async () => {
       const [method] = row.route.split(' ') as [string]
-      const cookie = row.as === 'admin' ? adminCookie : undefined
+      const cookie = row.as === 'admin' ? adminCookie : row.as === 'architect' ? architectCookie : undefined
       const sample = await row.sample(f)
       await fc.assert(fc.asyncProperty(attempts(row, sample), async (attempt) => {
         const before = await checksums(row.tables)

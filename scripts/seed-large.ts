@@ -1,6 +1,6 @@
 /**
  * `npm run db:seed:large`: a separate bench team ("Scale Bench", invented) with 10,000 studies
- * (revisions and portfolio summaries) and 100,000 notes once the notes table exists, for the
+ * (revisions and portfolio summaries) and 100,000 notes (threads, replies, some resolved), for the
  * list and portfolio benchmarks (`npm run bench`, section scale). Idempotent: a team that already
  * has its studies is left as it is. Sign in as manager@scalebench.example (password below).
  * The connection comes from NUXT_DATABASE_URL (default: the private instance of scripts/db.sh).
@@ -36,7 +36,7 @@ async function ensureTeam(db: Knex): Promise<{ teamId: number, userIds: number[]
   return { teamId: team.id, userIds: users.map(u => u.id) }
 }
 
-/** Seeds the bench team; studies only when the team has none yet, notes when the table exists. */
+/** Seeds the bench team; studies only when the team has none yet, notes only when it has none. */
 export async function seedLargeTeam(db: Knex, options: LargeSeedOptions = {}): Promise<LargeSeedResult> {
   const log = options.log ?? (() => undefined)
   const count = options.studies ?? 10_000
@@ -55,7 +55,7 @@ export async function seedLargeTeam(db: Knex, options: LargeSeedOptions = {}): P
   }
   const studiesSeconds = (performance.now() - t0) / 1000
   t0 = performance.now()
-  const notes = await seedLargeNotes(db, studyIds, userIds, options.notes ?? 100_000)
+  const notes = await seedLargeNotes(db, teamId, studyIds, userIds, options.notes ?? 100_000)
   const notesSeconds = (performance.now() - t0) / 1000
   log(notes.skipped ? `notes: skipped, ${notes.skipped}` : `inserted ${notes.inserted} notes in ${notesSeconds.toFixed(1)} s`)
   return { teamId, studies: studyIds.length, studiesSeconds, notes, notesSeconds }

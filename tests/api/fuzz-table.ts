@@ -44,6 +44,8 @@ export interface FuzzRow {
   sample: (f: FuzzFixtures) => FuzzSample | Promise<FuzzSample>
   /** tables compared with CHECKSUM TABLE before and after every refused request */
   tables: string[]
+  /** when set, the unmutated sample is sent once first and must get this status (so the fuzzer mutates a request that works) */
+  accepts?: number
   /** runs relative to the default (heavy routes get fewer) */
   weight?: number
 }
@@ -124,44 +126,45 @@ export const FUZZ_TABLE: FuzzRow[] = [
   { route: 'GET /api/portfolio/export', as: 'admin', sample: () => ({ query: PORTFOLIO_QUERY }), tables: [], weight: 0.5 },
 
   // notes and attachments
-  { route: 'GET /api/studies/:id/notes', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
-  { route: 'POST /api/studies/:id/notes', as: 'admin', sample: f => ({ params: id(f.studyId), body: { body: 'Fuzz note with **bold** and @architect' } }), tables: NOTE_TABLES },
-  { route: 'PATCH /api/notes/:id', as: 'admin', sample: async f => ({ params: id(f.noteId), body: { version: await noteVersion(f), body: 'Fuzz edit' } }), tables: NOTE_TABLES },
-  { route: 'DELETE /api/notes/:id', as: 'admin', sample: f => ({ params: id(f.deleteNoteId) }), tables: NOTE_TABLES },
-  { route: 'POST /api/notes/:id/resolve', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
-  { route: 'POST /api/notes/:id/reopen', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
+  { route: 'GET /api/studies/:id/notes', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'POST /api/studies/:id/notes', accepts: 201, as: 'admin', sample: f => ({ params: id(f.studyId), body: { body: 'Fuzz note with **bold** and @architect' } }), tables: NOTE_TABLES },
+  { route: 'PATCH /api/notes/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.noteId), body: { version: await noteVersion(f), body: 'Fuzz edit' } }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/resolve', accepts: 200, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/reopen', accepts: 200, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
   {
     // Multipart only: the harness sends JSON bodies, so every body mutation must get a 4xx (411/413/415/400)
     // and leave the tables alone; the path parameter is fuzzed as for any route. The accepted upload
     // itself is covered by notes-attachments specs and the authorization matrix.
-    route: 'POST /api/notes/:id/attachments', as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES
+    route: 'POST /api/notes/:id/attachments', accepts: 415, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES
   },
-  { route: 'GET /api/attachments/:id', as: 'admin', sample: f => ({ params: id(f.attachmentId) }), tables: [] },
+  { route: 'GET /api/attachments/:id', accepts: 200, as: 'admin', sample: f => ({ params: id(f.attachmentId) }), tables: [] },
+  // Last of the notes rows: a mutated path parameter may name noteId (" 1" reads as 1) and delete it.
+  { route: 'DELETE /api/notes/:id', accepts: 204, as: 'admin', sample: f => ({ params: id(f.deleteNoteId) }), tables: NOTE_TABLES },
 
   // imports, exports and bench data
-  { route: 'POST /api/studies/import/preview', as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv' } }), tables: STUDY_TABLES, weight: 0.5 },
-  { route: 'POST /api/studies/import', as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv', fileName: 'fuzz.csv' } }), tables: STUDY_TABLES, weight: 0.5 },
-  { route: 'GET /api/studies/:id/export', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/comparison', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/netlist', as: 'admin', sample: f => ({ params: id(f.ioStudyId), query: { candidate: 'r2r-voltage', seed: '1', index: '0' } }), tables: [] },
-  { route: 'GET /api/studies/:id/bench', as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'POST /api/studies/:id/bench', as: 'admin', sample: f => ({ params: id(f.ioStudyId), body: { candidateId: 'r2r-voltage', fileName: 'fuzz.csv', text: BENCH_CSV } }), tables: ['bench_measurements', 'audit_log'], weight: 0.5 },
-  { route: 'GET /api/studies/:id/bench/:benchId', as: 'admin', sample: f => ({ params: { id: String(f.ioStudyId), benchId: String(f.benchId) } }), tables: [] },
+  { route: 'POST /api/studies/import/preview', accepts: 200, as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv' } }), tables: STUDY_TABLES, weight: 0.5 },
+  { route: 'POST /api/studies/import', accepts: 201, as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv', fileName: 'fuzz.csv' } }), tables: STUDY_TABLES, weight: 0.5 },
+  { route: 'GET /api/studies/:id/export', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/comparison', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/netlist', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId), query: { candidate: 'r2r-voltage', seed: '1', index: '0' } }), tables: [] },
+  { route: 'GET /api/studies/:id/bench', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
+  { route: 'POST /api/studies/:id/bench', accepts: 201, as: 'admin', sample: f => ({ params: id(f.ioStudyId), body: { candidateId: 'r2r-voltage', fileName: 'fuzz.csv', text: BENCH_CSV } }), tables: ['bench_measurements', 'audit_log'], weight: 0.5 },
+  { route: 'GET /api/studies/:id/bench/:benchId', accepts: 200, as: 'admin', sample: f => ({ params: { id: String(f.ioStudyId), benchId: String(f.benchId) } }), tables: [] },
 
   // review, decision, activity and the brief
-  { route: 'GET /api/studies/:id/review', as: 'admin', sample: f => ({ params: id(f.inReviewStudyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/activity', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/brief', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/brief.pdf', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [], weight: 0.25 },
-  { route: 'POST /api/studies/:id/review-request', as: 'admin', sample: async f => ({ params: id(f.draftStudyId), body: { statusVersion: await statusVersion(f, f.draftStudyId), reviewerIds: [f.architectId] } }), tables: REVIEW_TABLES },
+  { route: 'GET /api/studies/:id/review', accepts: 200, as: 'admin', sample: f => ({ params: id(f.inReviewStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/activity', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/brief', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/brief.pdf', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [], weight: 0.25 },
+  { route: 'POST /api/studies/:id/review-request', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.draftStudyId), body: { statusVersion: await statusVersion(f, f.draftStudyId), reviewerIds: [f.architectId] } }), tables: REVIEW_TABLES },
   // Only the assigned architect gives a verdict (an admin gets 403), so this row calls as the demo architect.
-  { route: 'POST /api/studies/:id/reviews', as: 'architect', sample: async f => ({ params: id(f.inReviewStudyId), body: { statusVersion: await statusVersion(f, f.inReviewStudyId), verdict: 'signed_off', comment: 'Fuzz sign-off' } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/reviews', accepts: 201, as: 'architect', sample: async f => ({ params: id(f.inReviewStudyId), body: { statusVersion: await statusVersion(f, f.inReviewStudyId), verdict: 'signed_off', comment: 'Fuzz sign-off' } }), tables: REVIEW_TABLES },
   {
-    route: 'POST /api/studies/:id/decision',
+    route: 'POST /api/studies/:id/decision', accepts: 201,
     as: 'admin',
     sample: async f => ({ params: id(f.signedOffStudyId), body: { statusVersion: await statusVersion(f, f.signedOffStudyId), candidateId: 'r2r-voltage', rationale: 'Fuzz decision', revision: 1, signOffIds: [f.signOffId] } }),
     tables: [...REVIEW_TABLES, 'study_revisions']
   },
-  { route: 'POST /api/studies/:id/reopen', as: 'admin', sample: async f => ({ params: id(f.decidedStudyId), body: { statusVersion: await statusVersion(f, f.decidedStudyId) } }), tables: REVIEW_TABLES },
-  { route: 'POST /api/studies/:id/archive', as: 'admin', sample: async f => ({ params: id(f.archiveStudyId), body: { statusVersion: await statusVersion(f, f.archiveStudyId) } }), tables: REVIEW_TABLES }
+  { route: 'POST /api/studies/:id/reopen', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.decidedStudyId), body: { statusVersion: await statusVersion(f, f.decidedStudyId) } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/archive', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.archiveStudyId), body: { statusVersion: await statusVersion(f, f.archiveStudyId) } }), tables: REVIEW_TABLES }
 ]

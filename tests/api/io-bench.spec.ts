@@ -48,7 +48,7 @@ describe('bench data upload', () => {
       { line: 6, message: 'code 1 appears again (first on line 5)' },
       { line: 7, message: 'code 7 is outside 0 to 3 of a 2-bit study' }
     ])
-    expect(res.body.message).toMatch(/^bench\.csv: 3 problems, nothing was stored\. line 4: /)
+    expect(res.body.message).toMatch(/^text: bench\.csv: 3 problems, nothing was stored\. line 4: /)
     const short = await upload<Bad>(id, 'r2r-voltage', '0,0\n1,0.3\n2,0.6\n')
     expect(short.body.data.lines).toEqual([{ line: null, message: 'the file has 3 codes; a 2-bit study needs all 4 codes 0 to 3; missing 3' }])
     expect(await benchCount()).toBe(before)

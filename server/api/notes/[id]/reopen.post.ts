@@ -9,7 +9,8 @@ export default defineApiHandler(async (event): Promise<NoteDto> => {
   await db.transaction(async (trx) => {
     const note = await teamNote(trx, user, id, true)
     if (note.parent_id !== null) {
-      throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message: 'id: must be the first note of a thread; replies are resolved with their thread' })
+      const rule = 'must be the first note of a thread; replies are resolved with their thread'
+      throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message: `id: ${rule}`, data: { message: `id: ${rule}`, issues: [{ path: 'id', message: rule }] } })
     }
     if (note.resolved_at === null) return
     await trx('notes').where({ id }).update({ resolved_at: null, resolved_by: null })

@@ -7,7 +7,7 @@ import type { BenchMeasurementDto } from '#shared/types/bench'
 
 /**
  * Stores a measured transfer for a candidate of the current revision, with its INL/DNL, only when
- * the whole file is valid; otherwise a 400 listing the bad lines (`data.lines`) and nothing stored.
+ * the whole file is valid; otherwise a 400 on field `text` listing the bad lines (`data.lines`) and nothing stored.
  */
 export default defineApiHandler(async (event): Promise<BenchMeasurementDto> => {
   const user = await requireUser(event, ...STUDY_EDITOR_ROLES)
@@ -24,8 +24,10 @@ export default defineApiHandler(async (event): Promise<BenchMeasurementDto> => {
   const parsed = parseBenchCsv(body.text, bits, body.candidateId === 'r2r-current' ? 'current' : 'voltage')
   if (!parsed.ok) {
     const listed = parsed.errors.map(e => `${e.line === null ? 'file' : `line ${e.line}`}: ${e.message}`)
-    const message = `${body.fileName}: ${parsed.total} problem${parsed.total === 1 ? '' : 's'}, nothing was stored. ${listed.slice(0, 3).join('; ')}`
-    throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, lines: parsed.errors, total: parsed.total } })
+    // The refused field is the file's text: named first, like every other 400 (issues[0].path).
+    const rule = `${body.fileName}: ${parsed.total} problem${parsed.total === 1 ? '' : 's'}, nothing was stored. ${listed.slice(0, 3).join('; ')}`
+    const message = `text: ${rule}`
+    throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: 'text', message: rule }], lines: parsed.errors, total: parsed.total } })
   }
   const summary = benchSummary(parsed.value.levels)
   const benchId = await db.transaction(async (trx) => {

@@ -15,20 +15,16 @@ export interface FuzzFixtures {
   packId: string
   jobId: number
   invitationToken: string
-  /** a note by the admin on studyId (edited, resolved, reopened) and one the DELETE row may remove */
-  noteId: number
-  deleteNoteId: number
-  attachmentId: number
-  /** a study of the admin's team whose revision 1 has results for candidate r2r-voltage, with one bench row */
-  ioStudyId: number
-  benchId: number
-  /** review fixtures: a draft, one in review (the demo architect assigned), one also signed off, two decided */
-  draftStudyId: number
-  inReviewStudyId: number
-  signedOffStudyId: number
-  signOffId: number
-  decidedStudyId: number
-  archiveStudyId: number
+  /**
+   * Fresh fixtures, made when a row's sample is built (so no earlier row's path mutations can have
+   * changed them): a note by the admin on studyId (resolved when asked), an attachment on a fresh
+   * note, a study of the admin's team whose revision 1 has results for candidate r2r-voltage (in the
+   * status asked; in review with the demo architect assigned, signed off by them when asked), a bench row on it.
+   */
+  note: (resolved?: boolean) => Promise<number>
+  attachment: () => Promise<number>
+  study: (status?: 'draft' | 'in_review' | 'signed_off' | 'decided') => Promise<{ id: number, signOffId: number | null }>
+  bench: (studyId: number) => Promise<number>
   architectId: number
 }
 
@@ -74,8 +70,6 @@ async function packVersion(f: FuzzFixtures): Promise<number> {
 const NOTE_TABLES = ['notes', 'note_mentions', 'note_attachments', 'audit_log']
 const REVIEW_TABLES = ['studies', 'study_reviews', 'study_decisions', 'audit_log']
 /** mail_outbox is left out: the delivery worker updates rows queued by an earlier accepted request at any time. */
-const statusVersion = async (f: FuzzFixtures, studyId: number) => (await f.db('studies').where({ id: studyId }).first('status_version')).status_version as number
-const noteVersion = async (f: FuzzFixtures) => (await f.db('notes').where({ id: f.noteId }).first('version')).version as number
 const IMPORT_CSV = `title,bits,vrefV,updateRateHz,loadCapacitanceF,inlTargetLsb,dnlTargetLsb,yieldTarget,areaBudgetMm2,glitchLimitVs,powerBudgetW,sheetOhmPerSq,matchingPctUm,matchingConvention
 Fuzz import,8,2.5 V,1 MS/s,1 pF,0.5,0.5,99 %,0.05,100 pV·s,1 mW,1 kΩ,1 %·µm,pair
 `
@@ -128,43 +122,48 @@ export const FUZZ_TABLE: FuzzRow[] = [
   // notes and attachments
   { route: 'GET /api/studies/:id/notes', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
   { route: 'POST /api/studies/:id/notes', accepts: 201, as: 'admin', sample: f => ({ params: id(f.studyId), body: { body: 'Fuzz note with **bold** and @architect' } }), tables: NOTE_TABLES },
-  { route: 'PATCH /api/notes/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.noteId), body: { version: await noteVersion(f), body: 'Fuzz edit' } }), tables: NOTE_TABLES },
-  { route: 'POST /api/notes/:id/resolve', accepts: 200, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
-  { route: 'POST /api/notes/:id/reopen', accepts: 200, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES },
+  { route: 'PATCH /api/notes/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id(await f.note()), body: { version: 1, body: 'Fuzz edit' } }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/resolve', accepts: 200, as: 'admin', sample: async f => ({ params: id(await f.note()), body: {} }), tables: NOTE_TABLES },
+  { route: 'POST /api/notes/:id/reopen', accepts: 200, as: 'admin', sample: async f => ({ params: id(await f.note(true)), body: {} }), tables: NOTE_TABLES },
   {
     // Multipart only: the harness sends JSON bodies, so every body mutation must get a 4xx (411/413/415/400)
     // and leave the tables alone; the path parameter is fuzzed as for any route. The accepted upload
     // itself is covered by notes-attachments specs and the authorization matrix.
-    route: 'POST /api/notes/:id/attachments', accepts: 415, as: 'admin', sample: f => ({ params: id(f.noteId), body: {} }), tables: NOTE_TABLES
+    route: 'POST /api/notes/:id/attachments', accepts: 415, as: 'admin', sample: async f => ({ params: id(await f.note()), body: {} }), tables: NOTE_TABLES
   },
-  { route: 'GET /api/attachments/:id', accepts: 200, as: 'admin', sample: f => ({ params: id(f.attachmentId) }), tables: [] },
-  // Last of the notes rows: a mutated path parameter may name noteId (" 1" reads as 1) and delete it.
-  { route: 'DELETE /api/notes/:id', accepts: 204, as: 'admin', sample: f => ({ params: id(f.deleteNoteId) }), tables: NOTE_TABLES },
+  { route: 'GET /api/attachments/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id(await f.attachment()) }), tables: [] },
+  { route: 'DELETE /api/notes/:id', accepts: 204, as: 'admin', sample: async f => ({ params: id(await f.note()) }), tables: NOTE_TABLES },
 
   // imports, exports and bench data
   { route: 'POST /api/studies/import/preview', accepts: 200, as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv' } }), tables: STUDY_TABLES, weight: 0.5 },
   { route: 'POST /api/studies/import', accepts: 201, as: 'admin', sample: () => ({ body: { text: IMPORT_CSV, format: 'csv', fileName: 'fuzz.csv' } }), tables: STUDY_TABLES, weight: 0.5 },
-  { route: 'GET /api/studies/:id/export', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/comparison', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'GET /api/studies/:id/netlist', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId), query: { candidate: 'r2r-voltage', seed: '1', index: '0' } }), tables: [] },
-  { route: 'GET /api/studies/:id/bench', accepts: 200, as: 'admin', sample: f => ({ params: id(f.ioStudyId) }), tables: [] },
-  { route: 'POST /api/studies/:id/bench', accepts: 201, as: 'admin', sample: f => ({ params: id(f.ioStudyId), body: { candidateId: 'r2r-voltage', fileName: 'fuzz.csv', text: BENCH_CSV } }), tables: ['bench_measurements', 'audit_log'], weight: 0.5 },
-  { route: 'GET /api/studies/:id/bench/:benchId', accepts: 200, as: 'admin', sample: f => ({ params: { id: String(f.ioStudyId), benchId: String(f.benchId) } }), tables: [] },
+  { route: 'GET /api/studies/:id/export', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study()).id) }), tables: [] },
+  { route: 'GET /api/studies/:id/comparison', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study()).id) }), tables: [] },
+  { route: 'GET /api/studies/:id/netlist', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study()).id), query: { candidate: 'r2r-voltage', seed: '1', index: '0' } }), tables: [] },
+  { route: 'GET /api/studies/:id/bench', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study()).id) }), tables: [] },
+  { route: 'POST /api/studies/:id/bench', accepts: 201, as: 'admin', sample: async f => ({ params: id((await f.study()).id), body: { candidateId: 'r2r-voltage', fileName: 'fuzz.csv', text: BENCH_CSV } }), tables: ['bench_measurements', 'audit_log'], weight: 0.5 },
+  { route: 'GET /api/studies/:id/bench/:benchId', accepts: 200, as: 'admin', sample: async (f) => {
+    const study = (await f.study()).id
+    return { params: { id: String(study), benchId: String(await f.bench(study)) } }
+  }, tables: [] },
 
   // review, decision, activity and the brief
-  { route: 'GET /api/studies/:id/review', accepts: 200, as: 'admin', sample: f => ({ params: id(f.inReviewStudyId) }), tables: [] },
+  { route: 'GET /api/studies/:id/review', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('in_review')).id) }), tables: [] },
   { route: 'GET /api/studies/:id/activity', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
   { route: 'GET /api/studies/:id/brief', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
   { route: 'GET /api/studies/:id/brief.pdf', accepts: 200, as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [], weight: 0.25 },
-  { route: 'POST /api/studies/:id/review-request', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.draftStudyId), body: { statusVersion: await statusVersion(f, f.draftStudyId), reviewerIds: [f.architectId] } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/review-request', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('draft')).id), body: { statusVersion: 0, reviewerIds: [f.architectId] } }), tables: REVIEW_TABLES },
   // Only the assigned architect gives a verdict (an admin gets 403), so this row calls as the demo architect.
-  { route: 'POST /api/studies/:id/reviews', accepts: 201, as: 'architect', sample: async f => ({ params: id(f.inReviewStudyId), body: { statusVersion: await statusVersion(f, f.inReviewStudyId), verdict: 'signed_off', comment: 'Fuzz sign-off' } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/reviews', accepts: 201, as: 'architect', sample: async f => ({ params: id((await f.study('in_review')).id), body: { statusVersion: 0, verdict: 'signed_off', comment: 'Fuzz sign-off' } }), tables: REVIEW_TABLES },
   {
     route: 'POST /api/studies/:id/decision', accepts: 201,
     as: 'admin',
-    sample: async f => ({ params: id(f.signedOffStudyId), body: { statusVersion: await statusVersion(f, f.signedOffStudyId), candidateId: 'r2r-voltage', rationale: 'Fuzz decision', revision: 1, signOffIds: [f.signOffId] } }),
+    sample: async (f) => {
+      const { id: study, signOffId } = await f.study('signed_off')
+      return { params: id(study), body: { statusVersion: 0, candidateId: 'r2r-voltage', rationale: 'Fuzz decision', revision: 1, signOffIds: [signOffId] } }
+    },
     tables: [...REVIEW_TABLES, 'study_revisions']
   },
-  { route: 'POST /api/studies/:id/reopen', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.decidedStudyId), body: { statusVersion: await statusVersion(f, f.decidedStudyId) } }), tables: REVIEW_TABLES },
-  { route: 'POST /api/studies/:id/archive', accepts: 200, as: 'admin', sample: async f => ({ params: id(f.archiveStudyId), body: { statusVersion: await statusVersion(f, f.archiveStudyId) } }), tables: REVIEW_TABLES }
+  { route: 'POST /api/studies/:id/reopen', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('decided')).id), body: { statusVersion: 0 } }), tables: REVIEW_TABLES },
+  { route: 'POST /api/studies/:id/archive', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('decided')).id), body: { statusVersion: 0 } }), tables: REVIEW_TABLES }
 ]

@@ -55,37 +55,33 @@ function fixtureResults(candidateId: string) {
 }
 
 async function notesAndReviewFixtures(admin: { id: number, team_id: number }) {
-  const note = async (body: string) => {
-    const res = await api<{ id: number }>(`/api/studies/${f.studyId}/notes`, { method: 'POST', cookie: adminCookie, body: { body } })
-    expect(res.status).toBe(201)
-    return res.body.id
-  }
-  f.noteId = await note('Fuzz note')
-  f.deleteNoteId = await note('Fuzz note to delete')
-  const data = Buffer.from('code,volts\n0,0\n')
-  f.attachmentId = (await db('note_attachments').insert({ team_id: admin.team_id, note_id: f.noteId, filename: 'fuzz.csv', mime_type: 'text/csv', size_bytes: data.length, sha256: createHash('sha256').update(data).digest('hex'), data, uploaded_by: admin.id }))[0]!
   const engineer = await db('users').where({ email: DEMO.engineer }).first('id')
   f.architectId = (await db('users').where({ email: DEMO.architect }).first('id')).id
+  f.note = async (resolved = false) => {
+    const res = await api<{ id: number }>(`/api/studies/${f.studyId}/notes`, { method: 'POST', cookie: adminCookie, body: { body: 'Fuzz note' } })
+    expect(res.status).toBe(201)
+    if (resolved) expect((await api(`/api/notes/${res.body.id}/resolve`, { method: 'POST', cookie: adminCookie, body: {} })).status).toBe(200)
+    return res.body.id
+  }
+  f.attachment = async () => {
+    const data = Buffer.from('code,volts\n0,0\n')
+    return (await db('note_attachments').insert({ team_id: admin.team_id, note_id: await f.note(), filename: 'fuzz.csv', mime_type: 'text/csv', size_bytes: data.length, sha256: createHash('sha256').update(data).digest('hex'), data, uploaded_by: admin.id }))[0]!
+  }
   const bits4 = { ...SPEC, bits: 4, vrefV: 1 }
-  const studyAt = async (title: string, status: 'draft' | 'in_review' | 'decided') => {
-    const [id] = await db('studies').insert({ team_id: admin.team_id, owner_id: engineer.id, title, spec: JSON.stringify(bits4), status, version: 1 })
+  f.study = async (status = 'draft') => {
+    const [id] = await db('studies').insert({ team_id: admin.team_id, owner_id: engineer.id, title: `Fuzz ${status} ${Date.now()}`, spec: JSON.stringify(bits4), status: status === 'signed_off' ? 'in_review' : status, version: 1 })
     await db('study_revisions').insert({
       study_id: id, number: 1, spec: JSON.stringify(bits4), process: JSON.stringify({ sheetOhmPerSq: 1000, matchingPctUm: 1, matchingConvention: 'pair' }),
       options: JSON.stringify({ topologies: ['r2r-voltage'], trials: 0, seed: 1, inlDefinition: 'endpoint', envelopePoints: 256, confidence: 0.95 }),
       engine_version: 'fuzz', results: JSON.stringify(fixtureResults('r2r-voltage')), author_id: engineer.id
     })
-    return id!
+    if (status !== 'in_review' && status !== 'signed_off') return { id: id!, signOffId: null }
+    await db('study_reviews').insert({ study_id: id, round: 1, kind: 'assigned', reviewer_id: f.architectId, revision_number: 1, created_by: engineer.id })
+    if (status === 'in_review') return { id: id!, signOffId: null }
+    const [signOffId] = await db('study_reviews').insert({ study_id: id, round: 1, kind: 'signed_off', reviewer_id: f.architectId, revision_number: 1, created_by: f.architectId })
+    return { id: id!, signOffId: signOffId! }
   }
-  f.ioStudyId = await studyAt('Fuzz io study', 'draft')
-  f.benchId = (await db('bench_measurements').insert({ team_id: admin.team_id, study_id: f.ioStudyId, candidate_id: 'r2r-voltage', revision_number: 1, uploaded_by: engineer.id, file_name: 'fuzz.csv', quantity: 'voltage', bits: 4, points: JSON.stringify(Array.from({ length: 16 }, (_, k) => k / 16)), summary: JSON.stringify({}) }))[0]!
-  f.draftStudyId = await studyAt('Fuzz review draft', 'draft')
-  f.inReviewStudyId = await studyAt('Fuzz in review', 'in_review')
-  await db('study_reviews').insert({ study_id: f.inReviewStudyId, round: 1, kind: 'assigned', reviewer_id: f.architectId, revision_number: 1, created_by: engineer.id })
-  f.signedOffStudyId = await studyAt('Fuzz signed off', 'in_review')
-  await db('study_reviews').insert({ study_id: f.signedOffStudyId, round: 1, kind: 'assigned', reviewer_id: f.architectId, revision_number: 1, created_by: engineer.id })
-  f.signOffId = (await db('study_reviews').insert({ study_id: f.signedOffStudyId, round: 1, kind: 'signed_off', reviewer_id: f.architectId, revision_number: 1, created_by: f.architectId }))[0]!
-  f.decidedStudyId = await studyAt('Fuzz decided (reopen)', 'decided')
-  f.archiveStudyId = await studyAt('Fuzz decided (archive)', 'decided')
+  f.bench = async studyId => (await db('bench_measurements').insert({ team_id: admin.team_id, study_id: studyId, candidate_id: 'r2r-voltage', revision_number: 1, uploaded_by: engineer.id, file_name: 'fuzz.csv', quantity: 'voltage', bits: 4, points: JSON.stringify(Array.from({ length: 16 }, (_, k) => k / 16)), summary: JSON.stringify({}) }))[0]!
 }
 
 afterAll(async () => {

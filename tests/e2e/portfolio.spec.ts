@@ -21,6 +21,7 @@ describe('portfolio', () => {
       const context = await newContext(browser, inject('baseUrl'), width)
       const page = await context.newPage()
       await page.goto('/sign-in?redirect=/portfolio')
+      await page.locator('form[data-ready]').waitFor({ timeout: 60_000 })
       await page.getByLabel('Email').fill(DEMO.manager)
       await page.getByLabel('Password').fill(DEMO_PASSWORD)
       await page.getByRole('button', { name: 'Sign in' }).click()

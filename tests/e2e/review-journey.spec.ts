@@ -34,8 +34,8 @@ async function shoot(page: Page, name: string) {
 
 /**
  * Four browser sessions, one per role: the engineer drafts and asks for review, the architect
- * signs off with a comment, the admin records the decision, the manager reads the portfolio and
- * prints the brief. (The architect's notes join this journey when the notes feature is merged.)
+ * writes a note and signs off with a comment, the admin records the decision, the manager reads the portfolio and
+ * prints the brief, which lists the architect's open note.
  */
 describe('review journey: draft → review → sign-off → decision → brief', () => {
   it('engineer: creates a study, saves a revision with Monte Carlo results and asks the architect for review', async () => {
@@ -66,6 +66,10 @@ describe('review journey: draft → review → sign-off → decision → brief',
 
   it('architect: signs off with a comment', async () => {
     const page = await signedIn(DEMO.architect, studyUrl)
+    // The architect annotates the study first: an open note the brief lists under what is open.
+    await page.getByLabel(/^New note on/).fill('Settling margin at full scale is the thinnest line; worth a bench check.')
+    await page.getByRole('button', { name: 'Add note' }).click()
+    await expect.poll(() => page.locator('[data-thread]').first().textContent(), { timeout: 30_000 }).toContain('Settling margin at full scale')
     await page.getByLabel('Review comment').fill('Glitch and area margins read well; signed off on revision 1.')
     await page.getByTestId('sign-off').click()
     await expect.poll(() => page.getByTestId('review-entries').textContent()).toContain('Signed off by Tomas Reyne on revision 1')
@@ -101,6 +105,7 @@ describe('review journey: draft → review → sign-off → decision → brief',
     await page.getByTestId('brief-title').waitFor()
     expect(await page.getByTestId('brief-decision').textContent()).toContain(chosen)
     expect(await page.getByTestId('brief-signoffs').textContent()).toContain('Tomas Reyne')
+    expect(await page.locator('main').textContent()).toContain('1 open note')
     await shoot(page, 'brief-1280')
     await page.emulateMedia({ media: 'print' })
     const printed = await page.pdf({ format: 'A4', printBackground: false })

@@ -15,10 +15,11 @@ afterAll(async () => {
 })
 
 describe('admin adds a team rule, dry-runs it and sees it fire', () => {
-  it('writes a rule with the form, sees it fire on the sample study, saves it enabled and sees it in evaluations', async () => {
+  it('writes a rule with the form, sees it fire on the sample study, saves it enabled and sees it fire on a study and in evaluations', async () => {
     const context = await newContext(browser, baseUrl())
     const page = await context.newPage()
     await page.goto('/sign-in')
+    await page.locator('form[data-ready]').waitFor({ timeout: 60_000 })
     await page.getByLabel('Email').fill(DEMO.admin)
     await page.getByLabel('Password').fill(DEMO_PASSWORD)
     await page.getByRole('button', { name: 'Sign in' }).click()
@@ -71,12 +72,27 @@ describe('admin adds a team rule, dry-runs it and sees it fire', () => {
     })
     const body = await res.json() as { findings: { packId: string, candidateId: string }[] }
     expect(body.findings.filter(f => f.packId === packId).map(f => f.candidateId).sort()).toEqual(['string-direct', 'string-tree'])
+    const id = Number(/\d+$/.exec(page.url())?.[0] ?? 0) || null
+
+    // On a study: the Monte Carlo run on the server applies the team's enabled packs, and the
+    // string's findings on the study page carry the team rule (the 10-bit demo study's direct
+    // string has 1,024 tap switches, over the rule's 100).
+    await page.goto('/studies')
+    await page.getByRole('link', { name: 'LED bias DAC, 10 bit' }).click()
+    await page.waitForURL(/\/studies\/\d+$/)
+    await page.getByTestId('mc-run').click()
+    await expect.poll(() => page.getByTestId('mc-status').textContent(), { timeout: 90_000 }).toContain('done for these inputs')
+    await page.locator('[data-testid="candidates-table"] tr[data-candidate="string-direct"] button[aria-pressed]').click()
+    const onStudy = page.getByTestId('findings-list').locator('[data-rule="switches-over-team-limit"]').first()
+    await expect.poll(() => onStudy.textContent(), { timeout: 20_000 }).toContain(packId)
+    expect(await onStudy.textContent()).toContain('switches, over our line of 100.')
+    await page.screenshot({ path: `${ARTIFACTS}/rule-pack-on-study.png`, fullPage: true })
+
     await page.goto('/rule-packs')
     await expect.poll(() => page.getByTestId('rule-pack-table').textContent()).toContain(packId)
     await page.screenshot({ path: `${ARTIFACTS}/rule-packs.png`, fullPage: true })
     // leave the demo team as it was
-    const id = Number(/\d+$/.exec(page.url())?.[0] ?? 0) || null
     if (id) await page.request.patch(`/api/rule-packs/${id}`, { data: { version: 1, enabled: false } })
     await context.close()
-  })
+  }, 240_000)
 })

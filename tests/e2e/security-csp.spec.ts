@@ -26,6 +26,7 @@ describe('content security policy in Chromium', () => {
     const page = await context.newPage()
     const violations = await watchCsp(page)
     await page.goto('/sign-in?redirect=%2Fstudies')
+    await page.locator('form[data-ready]').waitFor({ timeout: 60_000 })
     await page.getByLabel('Email').fill(DEMO.architect)
     await page.getByLabel('Password').fill(DEMO_PASSWORD)
     expect(await violations()).toEqual([])

@@ -15,6 +15,7 @@ afterAll(async () => {
 })
 
 async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.locator('form[data-ready]').waitFor({ timeout: 60_000 })
   await page.getByLabel('Email').fill(email)
   await page.getByLabel('Password').fill(password)
   await page.getByRole('button', { name: 'Sign in' }).click()

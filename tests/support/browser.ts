@@ -34,6 +34,8 @@ export async function signedInPage(browser: Browser, baseURL: string, email: str
   const context = await newContext(browser, baseURL, width)
   const page = await context.newPage()
   await page.goto(`/sign-in?redirect=${encodeURIComponent(path)}`)
+  // Fill only once the form is hydrated: hydration would reset typed values to the empty model.
+  await page.locator('form[data-ready]').waitFor({ timeout: 60_000 })
   await page.getByLabel('Email').fill(email)
   await page.getByLabel('Password').fill(DEMO_PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()

@@ -10,7 +10,10 @@ export function rangedNumber(min: number, max: number, unit = '') {
 /** An integer in [min, max]; accepts numeric strings (query and route parameters). */
 export function rangedInteger(min: number, max: number, coerce = false) {
   const error = `must be an integer from ${min} to ${max}`
-  return (coerce ? z.coerce.number({ error }) : z.number({ error })).int({ error }).min(min, { error }).max(max, { error })
+  const integer = z.number({ error }).int({ error }).min(min, { error }).max(max, { error })
+  // Path and query values arrive as text: only plain digits are read as a number, so "1 ", "1e0"
+  // or "0x1" are refused instead of silently naming record 1.
+  return coerce ? z.preprocess(v => (typeof v === 'string' && /^-?[0-9]{1,16}$/.test(v) ? Number(v) : v), integer) : integer
 }
 
 /**

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex'
 import type { PortfolioQuery } from '#shared/schemas/portfolio'
 import type { PortfolioRow } from '#shared/types/portfolio'
+import { openNoteThreads } from './noteThreads'
 
 const SORT_COLUMNS = { updated: 's.updated_at', title: 's.title', status: 's.status', area: 's.summary_area_mm2', fails: 's.summary_fail_count' } as const
 const NULLABLE_SORTS = new Set<PortfolioQuery['sort']>(['area', 'fails'])
@@ -35,7 +36,7 @@ export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
       's.summary_candidate_id', 's.decision_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
       // open notes: threads neither resolved nor deleted (counted for the page's rows only)
-      db('notes as n').whereRaw('n.study_id = s.id').whereNull('n.parent_id').whereNull('n.resolved_at').whereNull('n.deleted_at').count('*').as('open_notes')), q)
+      openNoteThreads(db, 'n').whereRaw('n.study_id = s.id').count('*').as('open_notes')), q)
 }
 
 /** Database row → the portfolio's shape. */

@@ -4,6 +4,7 @@ import { FORMATS } from '#shared/findings/format'
 import type { SessionUser } from '#shared/types/auth'
 import type { BriefDto, BriefLine } from '#shared/types/brief'
 import { candidateLabel } from '../../utils/candidateLabel'
+import { openNoteThreads } from './noteThreads'
 
 const json = (v: unknown) => typeof v === 'string' ? JSON.parse(v) : v
 const f = (name: string, v: unknown) => FORMATS[name]!(v)
@@ -44,8 +45,7 @@ async function loadParts(db: Knex, user: SessionUser, id: number) {
     .orderBy('d.id', 'desc').first('d.candidate_id', 'd.rationale', 'd.revision_number', 'd.sign_off_ids', 'u.display_name', 'd.created_at')
   const signOffs = await db('study_reviews as r').join('users as u', 'u.id', 'r.reviewer_id').where({ 'r.study_id': id, 'r.kind': 'signed_off', 'r.revision_number': study.version })
     .orderBy('r.id').select('u.display_name', 'r.revision_number', 'r.created_at', 'r.comment')
-  // open threads: neither resolved nor deleted (as the portfolio counts them)
-  const counted = await db('notes').where({ study_id: id }).whereNull('parent_id').whereNull('resolved_at').whereNull('deleted_at').count({ n: '*' }).first()
+  const counted = await openNoteThreads(db).where('notes.study_id', id).count({ n: '*' }).first()
   const openNotes = Number(counted?.n ?? 0)
   return { study: toStudyDto(study), spec: (head ? json(head.spec) : json(study.spec)) as Spec, results: (head?.results ? json(head.results) : null) as Results | null, decision, signOffs, openNotes }
 }

@@ -4,7 +4,8 @@ import { portfolioSummary } from '#shared/utils/portfolio'
 import type { BenchMeasurementDto } from '#shared/types/bench'
 import type { RevisionDto } from '#shared/types/revisions'
 
-/** A 400 for an import with bad rows: the first problems in the message, every row's issues in `data.rows`. */
+/** A 400 for an import with bad rows: the first problems in the message, every row's issues in `data.rows`;
+ * `data.issues` names the field (`text`, the file) as every 400 does. */
 export function importRefused(preview: ImportPreview) {
   const bad = [
     ...preview.fileIssues.map(i => `${i.path}: ${i.message}`),
@@ -12,7 +13,7 @@ export function importRefused(preview: ImportPreview) {
   ]
   const count = preview.rows.filter(r => r.issues.length).length
   const message = `${count > 0 ? `${count} of ${preview.rows.length} rows have problems; nothing was created. ` : ''}${bad.slice(0, 3).join('; ')}`
-  return createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, fileIssues: preview.fileIssues, rows: preview.rows.map(r => ({ line: r.line, title: r.title, issues: r.issues })) } })
+  return createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: 'text', message: bad[0] ?? 'has problems' }], fileIssues: preview.fileIssues, rows: preview.rows.map(r => ({ line: r.line, title: r.title, issues: r.issues })) } })
 }
 
 /** The team's study and its head revision (null before the first); 404 for another team's study. */

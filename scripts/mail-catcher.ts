@@ -5,7 +5,7 @@
  *
  * Run: tsx scripts/mail-catcher.ts [--port 2525] [--dir .data/mail-catcher]
  */
-import { mkdirSync, writeFileSync } from 'node:fs'
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { pathToFileURL } from 'node:url'
 import { simpleParser } from 'mailparser'
@@ -42,7 +42,10 @@ export function startMailCatcher(options: { port: number, dir: string }): Promis
           text: mail.text ?? '',
           html: typeof mail.html === 'string' ? mail.html : ''
         }
-        writeFileSync(join(options.dir, `${id}.json`), JSON.stringify(caught, null, 2))
+        // Written under a temporary name and renamed: a reader never sees half a message.
+        const partial = join(options.dir, `${id}.json.partial`)
+        writeFileSync(partial, JSON.stringify(caught, null, 2))
+        renameSync(partial, join(options.dir, `${id}.json`))
         callback()
       }, (error: Error) => callback(error))
     }

@@ -12,7 +12,7 @@ export function importRefused(preview: ImportPreview) {
     ...preview.rows.filter(r => r.issues.length).map(r => `line ${r.line}: ${r.issues[0]!.path}: ${r.issues[0]!.message}`)
   ]
   const count = preview.rows.filter(r => r.issues.length).length
-  const message = `${count > 0 ? `${count} of ${preview.rows.length} rows have problems; nothing was created. ` : ''}${bad.slice(0, 3).join('; ')}`
+  const message = `text: ${count > 0 ? `${count} of ${preview.rows.length} rows have problems; nothing was created. ` : ''}${bad.slice(0, 3).join('; ')}`
   return createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: 'text', message: bad[0] ?? 'has problems' }], fileIssues: preview.fileIssues, rows: preview.rows.map(r => ({ line: r.line, title: r.title, issues: r.issues })) } })
 }
 

@@ -47,7 +47,7 @@ describe('spec import', () => {
     const [studies, revisions, audit] = [await count('studies'), await count('study_revisions'), await count('audit_log')]
     const res = await importText(text)
     expect(res.status).toBe(400)
-    expect(res.body.message).toMatch(/^1 of 3 rows have problems; nothing was created\. line 3: spec\.bits: must be an integer from 2 to 16/)
+    expect(res.body.message).toMatch(/^text: 1 of 3 rows have problems; nothing was created\. line 3: spec\.bits: must be an integer from 2 to 16/)
     expect(res.body.data.rows[1]!.issues[0]!.path).toBe('spec.bits')
     expect([await count('studies'), await count('study_revisions'), await count('audit_log')]).toEqual([studies, revisions, audit])
   })

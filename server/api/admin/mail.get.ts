@@ -8,5 +8,7 @@ export default defineApiHandler(async (event): Promise<CaughtMailDto[]> => {
   const { mailCatcherDir } = useRuntimeConfig()
   if (!mailCatcherDir) throw createError({ statusCode: 404, statusMessage: 'No local mail catcher is configured' })
   const names = (await readdir(mailCatcherDir).catch(() => [])).filter(n => n.endsWith('.json')).sort().reverse().slice(0, 50)
-  return Promise.all(names.map(async n => JSON.parse(await readFile(join(mailCatcherDir, n), 'utf8')) as CaughtMailDto))
+  // A file removed or rewritten while we read it is skipped, not a 500.
+  const read = await Promise.all(names.map(n => readFile(join(mailCatcherDir, n), 'utf8').then(t => JSON.parse(t) as CaughtMailDto, () => null)))
+  return read.filter((m): m is CaughtMailDto => m !== null)
 })

@@ -64,7 +64,8 @@ export default defineNuxtConfig({
       }
     }
   },
-  typescript: { strict: true },
+  // AssemblyScript sources of the WebAssembly kernels: compiled by npm run build:kernels, not by vue-tsc
+  typescript: { strict: true, tsConfig: { exclude: ['../scripts/kernels/**'] } },
   telemetry: false,
   auth: {
     isEnabled: true,

@@ -37,7 +37,7 @@ function timeCandidate(id: string, trials: number): number {
   const c = candidateContexts(input).find(x => x.shape.id === id)!
   const sampler = createSampler(c.shape, c.sampler)
   const chunk = (n: number, i: number) => ({
-    seed: 1, chunkIndex: i, trials: n, bits: 12, envelopePoints: 256,
+    seed: 1, chunkIndex: i, trials: n, bits: 12, envelopePoints: 256, envelope: true,
     targets: { inlTargetLsb: 0.5, dnlTargetLsb: 0.5, monotonicRequired: true }
   })
   runMonteCarloChunk(chunk(Math.ceil(trials / 10), 99), [sampler])

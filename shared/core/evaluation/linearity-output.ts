@@ -27,7 +27,7 @@ export function monteCarloSection(t: McTally | null, input: EvaluateInput) {
   }
   const { spec, options } = input
   const ci = (passes: number): YieldEstimate => wilsonInterval(passes, t.trials, options.confidence)
-  const codes = bucketCodes(t.envelopeMin.length, spec.bits)
+  const codes = bucketCodes(t.worstCodeHist.length, spec.bits)
   return {
     trials: t.trials,
     seed: options.seed,
@@ -49,7 +49,7 @@ export function monteCarloSection(t: McTally | null, input: EvaluateInput) {
     monotonic: ci(t.monoPass),
     all: ci(t.allPass),
     worstInlCodes: { codes, counts: t.worstCodeHist },
-    envelope: { codes, inlMinLsb: t.envelopeMin, inlMaxLsb: t.envelopeMax }
+    envelope: { codes, inlMinLsb: t.envelopeMin, inlMaxLsb: t.envelopeMax, trials: t.envelopeTrials }
   }
 }
 

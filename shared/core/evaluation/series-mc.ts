@@ -9,7 +9,7 @@
  */
 import { buildCircuit } from '../circuits/index'
 import type { EvaluateInput } from '../contract/evaluate'
-import { solveCircuitArrays } from '../solve/index'
+import { solveCircuitLevels } from '../solve/index'
 import { createFastNormalSource, deriveSeed } from '../stats/rng'
 import type { CandidateContext } from './context'
 import { circuitShapeOf, twoStageUnits } from './context'
@@ -64,7 +64,7 @@ export function sampledDnlEnvelope(c: CandidateContext, index: number, input: Ev
       sigmaOffsetV: process.bufferOffsetSigmaV,
       normal: createFastNormalSource(deriveSeed(options.seed, SERIES_STREAM, index, j))
     })
-    const levels = solveCircuitArrays(circuit).value
+    const levels = solveCircuitLevels(circuit)
     dnlPerCode(levels, linearityLine(levels, options.inlDefinition).s, dnl)
     for (let b = 0; b < buckets; b++) {
       const end = Math.min(steps, (b + 1) * size)

@@ -14,6 +14,7 @@ import { createSegmentedScratch, linearityFromSegmentedWeights } from '../stats/
 import type { NormalsSummary } from '../stats/string-mc'
 import { stringTrial } from '../stats/string-mc'
 import { createTwoStageScratch, twoStageTrial } from '../stats/two-stage'
+import { kernelsFor } from '../stats/wasm-kernels'
 import type { CandidateShape, TwoRConstruction } from './shapes'
 import { coarseToFineRatio, lowBits } from './shapes'
 
@@ -134,8 +135,18 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
     key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
     normals: at + 2 * l + 1,
     run(z, out, env) {
-      g = legBuffer(at, g)
-      const sumG = sampleLegs(g, z, 2 * s2, sw, extremes)
+      const k = kernelsFor(z)
+      let sumG: number
+      if (k && at <= k.legs.length) {
+        // The same pass in WebAssembly, into its leg buffer (which its unary scan then reads).
+        g = k.legs.subarray(0, at)
+        sumG = k.sampleLegs(at, 2 * s2, sw)
+        extremes.hi = k.legHiIndex()
+        extremes.lo = k.legLoIndex()
+      } else {
+        g = legBuffer(at, g)
+        sumG = sampleLegs(g, z, 2 * s2, sw, extremes)
+      }
       const joint = 1 + p.sigmaUnit * z[at]!
       fillScaled(legs, z, at + 1, 2, s2)
       fillScaled(series, z, at + 1 + l, 1, p.sigmaUnit)

@@ -3,9 +3,9 @@
  * Inputs are assumed valid (parse them with `solveInputSchema` first).
  */
 import type { SolveCode, SolveInput, SolveOutput } from '../contract/solve'
-import { solveR2rCurrent, solveR2rVoltage } from './r2r'
-import { solveSegmented } from './segmented'
-import { solveString, solveTwoStage } from './string'
+import { r2rCurrentLevels, r2rVoltageLevels, solveR2rCurrent, solveR2rVoltage } from './r2r'
+import { segmentedLevels, solveSegmented } from './segmented'
+import { solveString, solveTwoStage, stringLevels } from './string'
 import type { CircuitSolution } from './types'
 
 export type { CircuitSolution } from './types'
@@ -18,6 +18,20 @@ export function solveCircuitArrays(input: SolveInput): CircuitSolution {
     case 'r2r-current': return solveR2rCurrent(input)
     case 'segmented': return solveSegmented(input)
     case 'two-stage-string': return solveTwoStage(input)
+  }
+}
+
+/**
+ * The output level of every code (V, or A in current mode) exactly as `solveCircuitArrays`
+ * gives it, without I_REF and R_out (for callers that need only the transfer curve).
+ */
+export function solveCircuitLevels(input: SolveInput): Float64Array {
+  switch (input.topology) {
+    case 'string': return stringLevels(input)
+    case 'r2r-voltage': return r2rVoltageLevels(input)
+    case 'r2r-current': return r2rCurrentLevels(input)
+    case 'segmented': return segmentedLevels(input)
+    case 'two-stage-string': return solveTwoStage(input).value
   }
 }
 

@@ -64,8 +64,7 @@ export function solveR2rVoltage(c: R2rVoltageInput | (LadderValues & { vrefV: nu
   const n = c.legsOhm.length
   const codes = 2 ** n
   const sw = c.switchOhm ?? 0
-  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
-  const value = linearAllCodes(w, c.vrefV, new Float64Array(codes))
+  const value = r2rVoltageLevels(c)
   const g = legConductances(c)
   const { shunt, series } = ladderChain(c, g, false)
   const q = legQuadratic(g, chainInverse(shunt, series), 0)
@@ -86,8 +85,7 @@ export function solveR2rCurrent(c: R2rCurrentInput | (LadderValues & { vrefV: nu
   const sw = c.switchOhm ?? 0
   // node voltages per volt at node 0 are x_i / x_0 of the voltage-mode chain: I_leg,i = V_REF w_i / R_00
   const rIn = ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
-  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
-  const value = linearAllCodes(w, c.vrefV / rIn, new Float64Array(codes))
+  const value = r2rCurrentLevels(c)
   const irefA = new Float64Array(codes).fill(c.vrefV / rIn)
   const g = legConductances(c)
   const { shunt, series } = ladderChain(c, g, true)
@@ -95,4 +93,18 @@ export function solveR2rCurrent(c: R2rCurrentInput | (LadderValues & { vrefV: nu
   const routOhm = quadraticAllCodes(q, n, 1, new Float64Array(codes))
   for (let k = 0; k < codes; k++) routOhm[k] = 1 / (routOhm[k] as number)
   return { output: 'current', value, irefA, routOhm }
+}
+
+/** The output voltages of `solveR2rVoltage` alone (no I_REF, no R_out). */
+export function r2rVoltageLevels(c: LadderValues & { vrefV: number }): Float64Array {
+  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, c.switchOhm ?? 0)
+  return linearAllCodes(w, c.vrefV, new Float64Array(2 ** c.legsOhm.length))
+}
+
+/** The output currents of `solveR2rCurrent` alone (no R_out). */
+export function r2rCurrentLevels(c: LadderValues & { vrefV: number }): Float64Array {
+  const sw = c.switchOhm ?? 0
+  const rIn = ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
+  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
+  return linearAllCodes(w, c.vrefV / rIn, new Float64Array(2 ** c.legsOhm.length))
 }

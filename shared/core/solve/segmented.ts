@@ -57,6 +57,20 @@ export function solveSegmented(s: SegmentedInput): CircuitSolution {
   const sw = s.switchOhm ?? 0
   const fine = 2 ** s.legsOhm.length
   const codes = (s.unaryLegsOhm.length + 1) * fine
+  const value = segmentedLevels(s)
+  const gu = Float64Array.from(s.unaryLegsOhm, r => 1 / (r + sw))
+  const g = Float64Array.from(s.legsOhm, r => 1 / (r + sw))
+  const irefA = new Float64Array(codes)
+  segmentedIref(s, gu, g, irefA)
+  const rout = segmentedRoutOhm(s.unaryLegsOhm, s.jointOhm, s.legsOhm, s.seriesOhm, s.terminationOhm, sw)
+  return { output: 'voltage', value, irefA, routOhm: new Float64Array(codes).fill(rout) }
+}
+
+/** The output voltages of `solveSegmented` alone (no I_REF, no R_out). */
+export function segmentedLevels(s: SegmentedInput): Float64Array {
+  const sw = s.switchOhm ?? 0
+  const fine = 2 ** s.legsOhm.length
+  const codes = (s.unaryLegsOhm.length + 1) * fine
   const { unary, binary } = segmentedWeights(s.unaryLegsOhm, s.jointOhm, s.legsOhm, s.seriesOhm, s.terminationOhm, sw)
   const lsb = linearAllCodes(binary, s.vrefV, new Float64Array(fine))
   const value = new Float64Array(codes)
@@ -65,10 +79,5 @@ export function solveSegmented(s: SegmentedInput): CircuitSolution {
     if (m > 0) msb += s.vrefV * (unary[m - 1] as number)
     for (let c = 0; c < fine; c++) value[m * fine + c] = msb + (lsb[c] as number)
   }
-  const gu = Float64Array.from(s.unaryLegsOhm, r => 1 / (r + sw))
-  const g = Float64Array.from(s.legsOhm, r => 1 / (r + sw))
-  const irefA = new Float64Array(codes)
-  segmentedIref(s, gu, g, irefA)
-  const rout = segmentedRoutOhm(s.unaryLegsOhm, s.jointOhm, s.legsOhm, s.seriesOhm, s.terminationOhm, sw)
-  return { output: 'voltage', value, irefA, routOhm: new Float64Array(codes).fill(rout) }
+  return value
 }

@@ -29,15 +29,27 @@ export function solveString(c: StringInput): CircuitSolution {
   const above = suffixSums(c.unitsOhm)
   const total = below[codes] as number
   const sw = c.switchOhm ?? 0
-  const value = new Float64Array(codes)
+  const value = tapLevels(c.vrefV, below, codes)
   const routOhm = new Float64Array(codes)
   for (let k = 0; k < codes; k++) {
-    const b = below[k] as number
-    const a = above[k] as number
-    value[k] = c.vrefV * b / total
-    routOhm[k] = b * a / total + sw
+    routOhm[k] = (below[k] as number) * (above[k] as number) / total + sw
   }
   return { output: 'voltage', value, irefA: new Float64Array(codes).fill(c.vrefV / total), routOhm }
+}
+
+/** Tap voltages V_REF S_k / S from the prefix sums (`below[codes]` = S). */
+function tapLevels(vrefV: number, below: Float64Array, codes: number): Float64Array {
+  const total = below[codes] as number
+  const value = new Float64Array(codes)
+  for (let k = 0; k < codes; k++) {
+    value[k] = vrefV * (below[k] as number) / total
+  }
+  return value
+}
+
+/** The output levels of `solveString` alone (no R_out, no I_REF). */
+export function stringLevels(c: StringInput): Float64Array {
+  return tapLevels(c.vrefV, prefixSums(c.unitsOhm), c.unitsOhm.length)
 }
 
 /**

@@ -32,6 +32,8 @@ export interface McTally {
   worstCodeHist: number[]
   envelopeMin: number[]
   envelopeMax: number[]
+  /** trials behind envelopeMin/Max (those of the chunks that widened it) */
+  envelopeTrials: number
 }
 
 /** An empty tally whose worst-code histogram and envelope have `buckets` entries. */
@@ -44,7 +46,8 @@ export function createTally(buckets: number): McTally {
     dnlHist: new Array<number>(HIST_BINS + 1).fill(0),
     worstCodeHist: new Array<number>(buckets).fill(0),
     envelopeMin: new Array<number>(buckets).fill(Infinity),
-    envelopeMax: new Array<number>(buckets).fill(-Infinity)
+    envelopeMax: new Array<number>(buckets).fill(-Infinity),
+    envelopeTrials: 0
   }
 }
 
@@ -89,8 +92,9 @@ export function addTrial(t: McTally, r: LinearityResult, targets: TallyTargets, 
   t.worstCodeHist[inlCode >> shift]!++
 }
 
-/** Copies an envelope's buckets into the tally (after a chunk). */
-export function absorbEnvelope(t: McTally, env: Envelope): void {
+/** Copies an envelope's buckets, widened over `trials` trials, into the tally (after a chunk). */
+export function absorbEnvelope(t: McTally, env: Envelope, trials: number): void {
+  t.envelopeTrials += trials
   for (let b = 0; b < env.min.length; b++) {
     t.envelopeMin[b] = Math.min(t.envelopeMin[b]!, env.min[b]!)
     t.envelopeMax[b] = Math.max(t.envelopeMax[b]!, env.max[b]!)
@@ -119,7 +123,9 @@ export function mergeTally(a: McTally, b: McTally): McTally {
     inlHist: sum(a.inlHist, b.inlHist),
     dnlHist: sum(a.dnlHist, b.dnlHist),
     worstCodeHist: sum(a.worstCodeHist, b.worstCodeHist),
-    envelopeMin: a.envelopeMin.map((v, i) => Math.min(v, b.envelopeMin[i]!)),
-    envelopeMax: a.envelopeMax.map((v, i) => Math.max(v, b.envelopeMax[i]!))
+    // a chunk that kept no envelope sends none (empty arrays): the other side's is the envelope
+    envelopeMin: b.envelopeTrials === 0 ? a.envelopeMin : a.envelopeTrials === 0 ? b.envelopeMin : a.envelopeMin.map((v, i) => Math.min(v, b.envelopeMin[i]!)),
+    envelopeMax: b.envelopeTrials === 0 ? a.envelopeMax : a.envelopeTrials === 0 ? b.envelopeMax : a.envelopeMax.map((v, i) => Math.max(v, b.envelopeMax[i]!)),
+    envelopeTrials: a.envelopeTrials + b.envelopeTrials
   }
 }

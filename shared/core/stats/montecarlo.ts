@@ -10,6 +10,8 @@
  * R-2R ladders) are computed once per trial.
  *
  * The generator is filled in two calls (z[0, prefix) then the rest): the same stream, in order.
+ * It is the WebAssembly build of the generator where available (stats/wasm-normals.ts), else
+ * the JavaScript one: both write the same numbers.
  *
  * Reproducibility: the chunk's generator is seeded with deriveSeed(seed, chunkIndex) and chunks
  * have a fixed size chosen by the planner, so the merged result does not depend on how many
@@ -23,6 +25,8 @@ import type { Envelope } from './envelope'
 import { createEnvelope } from './envelope'
 import { newLinearityResult } from './linearity'
 import { createFastNormals, deriveSeed } from './rng'
+import { claimWasmNormals } from './wasm-kernels'
+import type { FilledRange } from './ziggurat'
 
 /** One chunk of trials. */
 export interface McChunk {
@@ -31,6 +35,8 @@ export interface McChunk {
   trials: number
   bits: number
   envelopePoints: number
+  /** widen the per-code INL envelope in this chunk's trials (an evaluation does so in its first chunk only, see tasks.ts) */
+  envelope: boolean
   targets: TallyTargets
 }
 
@@ -39,9 +45,32 @@ export interface McChunk {
  * @returns one tally per sampler, in the order given
  */
 export function runMonteCarloChunk(chunk: McChunk, samplers: readonly TrialSampler[]): McTally[] {
-  const gen = createFastNormals(deriveSeed(chunk.seed, chunk.chunkIndex))
+  const seed = deriveSeed(chunk.seed, chunk.chunkIndex)
   const normals = samplers.reduce((mx, s) => Math.max(mx, s.normals), 0)
-  const z = new Float64Array(normals)
+  // The WebAssembly generator writes the same stream into its own memory; else the JS one.
+  const wasm = claimWasmNormals(seed, normals)
+  try {
+    return runTrials(chunk, samplers, normals, wasm ?? jsNormals(seed, normals))
+  } finally {
+    wasm?.release()
+  }
+}
+
+/** A normal buffer and its generator: the JS fallback of `claimWasmNormals`. */
+interface NormalBuffer {
+  z: Float64Array
+  readonly filled: FilledRange
+  fill: (start: number, end: number) => void
+}
+
+function jsNormals(seed: number, count: number): NormalBuffer {
+  const gen = createFastNormals(seed)
+  const z = new Float64Array(count)
+  return { z, filled: gen.filled, fill: (start, end) => gen.fill(z, start, end) }
+}
+
+function runTrials(chunk: McChunk, samplers: readonly TrialSampler[], normals: number, gen: NormalBuffer): McTally[] {
+  const z = gen.z
   const keys = [...new Set(samplers.map(s => s.key))]
   const first = keys.map(k => samplers.find(s => s.key === k)!)
   const envs: Envelope[] = keys.map(() => createEnvelope(chunk.bits, chunk.envelopePoints))
@@ -54,16 +83,23 @@ export function runMonteCarloChunk(chunk: McChunk, samplers: readonly TrialSampl
   const summary: NormalsSummary = { count: prefix, sum: 0, hiK: 0, loK: 0 }
   const given = first.map(s => (s.summedPrefix === prefix && prefix > 0 ? summary : undefined))
   for (let t = 0; t < chunk.trials; t++) {
-    gen.fill(z, 0, prefix)
+    gen.fill(0, prefix)
     summary.sum = gen.filled.sum
     summary.hiK = gen.filled.hiK
     summary.loK = gen.filled.loK
-    gen.fill(z, prefix, normals)
+    gen.fill(prefix, normals)
     for (let i = 0; i < first.length; i++) {
-      first[i]!.run(z, results[i]!, envs[i], given[i])
+      first[i]!.run(z, results[i]!, chunk.envelope ? envs[i] : undefined, given[i])
       addTrial(tallies[i]!, results[i]!, chunk.targets, shift)
     }
   }
-  tallies.forEach((tally, i) => absorbEnvelope(tally, envs[i]!))
+  tallies.forEach((tally, i) => {
+    if (chunk.envelope) {
+      absorbEnvelope(tally, envs[i]!, chunk.trials)
+    } else {
+      tally.envelopeMin = []
+      tally.envelopeMax = []
+    }
+  })
   return samplers.map(s => tallies[keys.indexOf(s.key)]!)
 }

@@ -42,8 +42,24 @@ export function createFastNormals(seed: number): FastNormalGenerator {
   return new FastNormalGenerator(seed)
 }
 
-/** Fast-path `NormalSource` (one deviate per call) for code that wants a plain function. */
+/**
+ * Fast-path `NormalSource` (one deviate per call) for code that wants a plain function. It owns
+ * its generator and hands out values of bulk fills one by one: the same sequence as `next()`
+ * calls (fill continues the stream), without a fill call per value (a 16-bit string sample
+ * draws 2^16 of them).
+ */
 export function createFastNormalSource(seed: number): NormalSource {
   const gen = new FastNormalGenerator(seed)
-  return () => gen.next()
+  const block = new Float64Array(NORMAL_SOURCE_BLOCK)
+  let at = block.length
+  return () => {
+    if (at === block.length) {
+      gen.fill(block, 0, block.length)
+      at = 0
+    }
+    return block[at++]!
+  }
 }
+
+/** Values drawn per refill of a fast normal source. */
+const NORMAL_SOURCE_BLOCK = 512

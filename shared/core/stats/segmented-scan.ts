@@ -6,6 +6,11 @@
 import type { Envelope } from './envelope'
 import { widenBucket } from './envelope'
 import type { SegmentedScratch } from './segmented'
+import type { Kernels } from './wasm-kernels'
+import { loadedKernels } from './wasm-kernels'
+
+/** Legs per group of the fast scan without an envelope: a new extreme is replayed within its group only. */
+const REPLAY_GROUP = 1024
 
 /** Extremes of the cumulative unary INL e0 + Σ_{l<m}(u_l·k − 2^L) over m, and of u itself. */
 export interface UnaryExtremes {
@@ -33,13 +38,23 @@ export interface LegExtremes {
  */
 export function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: number, scratch: SegmentedScratch, env: Envelope | undefined, keep: boolean, neg: number, pos: number, legs?: LegExtremes): UnaryExtremes {
   const count = u.length
-  const group = env ? (1 << env.shift) / step : count + 1
   const x: UnaryExtremes = { hiV: -Infinity, loV: Infinity, hiM: 0, loM: 0, uHi: 0, uLo: 0, uHiV: -Infinity, uLoV: Infinity }
   const fast = legs !== undefined && !keep
-  let c = e0
-  for (let start = 0, b = 0; start <= count; start += group, b++) {
-    const end = Math.min(count + 1, start + group)
-    c = fast ? inlGroup(u, k, step, start, end, c, x, env, b, neg, pos) : unaryGroup(u, k, step, start, end, c, x, keep ? scratch.cum : null, env, b, neg, pos)
+  const group = env ? (1 << env.shift) / step : (fast ? REPLAY_GROUP : count + 1)
+  const kernels = fast ? legKernels(u) : null
+  if (kernels && Math.floor(count / group) + 1 <= kernels.bucketCapacity) {
+    // inlGroup's loop in WebAssembly over the kernels' leg buffer, then its bookkeeping here.
+    kernels.unaryScan(count, k, step, e0, group)
+    const r = kernels.buckets
+    for (let start = 0, b = 0; start <= count; start += group, b++) {
+      groupExtremes(u, k, step, start, Math.min(count + 1, start + group), r[3 * b + 2]!, r[3 * b]!, r[3 * b + 1]!, x, env, b, neg, pos)
+    }
+  } else {
+    let c = e0
+    for (let start = 0, b = 0; start <= count; start += group, b++) {
+      const end = Math.min(count + 1, start + group)
+      c = fast ? inlGroup(u, k, step, start, end, c, x, env, b, neg, pos) : unaryGroup(u, k, step, start, end, c, x, keep ? scratch.cum : null, env, b, neg, pos)
+    }
   }
   if (legs) {
     x.uHi = legs.hi
@@ -54,18 +69,38 @@ export function scanUnary(u: ArrayLike<number>, k: number, step: number, e0: num
  */
 function inlGroup(u: ArrayLike<number>, k: number, step: number, start: number, end: number, c0: number, x: UnaryExtremes, env: Envelope | undefined, b: number, neg: number, pos: number): number {
   const stop = Math.min(end, u.length)
-  let hi = -Infinity
-  let lo = Infinity
+  // Even and odd m keep their own extremes (shorter Math.max/min chains); c is summed in plain order.
+  let hiE = -Infinity
+  let loE = Infinity
+  let hiO = -Infinity
+  let loO = Infinity
   let c = c0
-  for (let m = start; m < stop; m++) {
-    hi = Math.max(hi, c)
-    lo = Math.min(lo, c)
+  let m = start
+  for (; m + 1 < stop; m += 2) {
+    hiE = Math.max(hiE, c)
+    loE = Math.min(loE, c)
+    c += u[m]! * k - step
+    hiO = Math.max(hiO, c)
+    loO = Math.min(loO, c)
+    c += u[m + 1]! * k - step
+  }
+  if (m < stop) {
+    hiE = Math.max(hiE, c)
+    loE = Math.min(loE, c)
     c += u[m]! * k - step
   }
+  let hi = Math.max(hiE, hiO)
+  let lo = Math.min(loE, loO)
   if (end > stop) {
     hi = Math.max(hi, c)
     lo = Math.min(lo, c)
   }
+  groupExtremes(u, k, step, start, end, c0, hi, lo, x, env, b, neg, pos)
+  return c
+}
+
+/** A group's extremes into the running ones (positions by replay from the group's start value c0) and the envelope. */
+function groupExtremes(u: ArrayLike<number>, k: number, step: number, start: number, end: number, c0: number, hi: number, lo: number, x: UnaryExtremes, env: Envelope | undefined, b: number, neg: number, pos: number): void {
   if (hi > x.hiV) {
     x.hiV = hi
     x.hiM = replayTo(u, k, step, start, end, c0, hi)
@@ -77,7 +112,12 @@ function inlGroup(u: ArrayLike<number>, k: number, step: number, start: number, 
   if (env) {
     widenBucket(env, b, lo + neg, hi + pos)
   }
-  return c
+}
+
+/** The kernels when `u` is their leg buffer. */
+function legKernels(u: ArrayLike<number>): Kernels | null {
+  const k = loadedKernels()
+  return k && u instanceof Float64Array && u.buffer === k.legs.buffer && u.byteOffset === k.legs.byteOffset ? k : null
 }
 
 /**

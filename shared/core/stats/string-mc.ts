@@ -9,6 +9,10 @@ import type { Envelope } from './envelope'
 import { widenBucket } from './envelope'
 import type { InlDefinition, LinearityResult } from './linearity'
 import { leastSquaresLine } from './linearity'
+import { kernelsFor } from './wasm-kernels'
+
+/** Codes per bucket when no envelope is kept (see stringTrial). */
+const REPLAY_BUCKET = 1024
 
 /** Extreme units z over the one-code steps k = 0 … n − 2 (first occurrence), found by the line pass. */
 interface UnitExtremes {
@@ -107,15 +111,27 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
   const x: UnitExtremes = { zHi: -Infinity, zLo: Infinity, zHiK: 0, zLoK: 0 }
   const line = stringLine(z, n, sigma, def, x, zs)
   const inv = 1 / line.s
-  const size = env ? 1 << env.shift : n
+  // Without an envelope, buckets still bound the replay that finds a new extreme's code.
+  const size = env ? 1 << env.shift : Math.min(n, REPLAY_BUCKET)
   // INL(k) = (S_k − a)/s − k, carried as a running value of size O(1 LSB): each unit adds
   // r_k/s − 1 = (inv − 1) + σ·inv·z_k. Rounding stays ~n·ε LSB instead of ~n·ε·2^N.
   const c0 = inv - 1
   const c1 = sigma * inv
   const range = { hi: -Infinity, lo: Infinity }
-  let inl = -line.a * inv
-  for (let b = 0, from = 0; from < n; b++, from += size) {
-    inl = stringBucket(z, from, from + size, inl, c0, c1, range, out, env, b)
+  const inl0 = -line.a * inv
+  const k = kernelsFor(z)
+  if (k && n / size <= k.bucketCapacity) {
+    // The same scan in WebAssembly, then the same bucket-by-bucket bookkeeping here.
+    k.stringScan(0, n, size, inl0, c0, c1)
+    const r = k.buckets
+    for (let b = 0, from = 0; from < n; b++, from += size) {
+      bucketExtremes(z, from, from + size, r[3 * b + 2]!, c0, c1, r[3 * b]!, r[3 * b + 1]!, range, out, env, b)
+    }
+  } else {
+    let inl = inl0
+    for (let b = 0, from = 0; from < n; b++, from += size) {
+      inl = stringBucket(z, from, from + size, inl, c0, c1, range, out, env, b)
+    }
   }
   out.inlMaxLsb = range.hi
   out.inlMinLsb = range.lo
@@ -133,14 +149,33 @@ export function stringTrial(z: Float64Array, n: number, sigma: number, def: InlD
  * at `to`.
  */
 function stringBucket(z: Float64Array, from: number, to: number, inl0: number, c0: number, c1: number, range: { hi: number, lo: number }, out: LinearityResult, env: Envelope | undefined, b: number): number {
-  let bHi = -Infinity
-  let bLo = Infinity
+  // Two pairs of extremes (even and odd k) halve the Math.max/min dependency chains; the running
+  // INL itself is summed in the same order as a plain loop, so every value is unchanged.
+  let hiE = -Infinity
+  let loE = Infinity
+  let hiO = -Infinity
+  let loO = Infinity
   let inl = inl0
-  for (let k = from; k < to; k++) {
-    bHi = Math.max(bHi, inl)
-    bLo = Math.min(bLo, inl)
+  let k = from
+  for (; k + 1 < to; k += 2) {
+    hiE = Math.max(hiE, inl)
+    loE = Math.min(loE, inl)
+    inl += c0 + c1 * z[k]!
+    hiO = Math.max(hiO, inl)
+    loO = Math.min(loO, inl)
+    inl += c0 + c1 * z[k + 1]!
+  }
+  if (k < to) {
+    hiE = Math.max(hiE, inl)
+    loE = Math.min(loE, inl)
     inl += c0 + c1 * z[k]!
   }
+  bucketExtremes(z, from, to, inl0, c0, c1, Math.max(hiE, hiO), Math.min(loE, loO), range, out, env, b)
+  return inl
+}
+
+/** A bucket's extremes into the running range (codes by replay from its start value) and the envelope. */
+function bucketExtremes(z: Float64Array, from: number, to: number, inl0: number, c0: number, c1: number, bHi: number, bLo: number, range: { hi: number, lo: number }, out: LinearityResult, env: Envelope | undefined, b: number): void {
   if (bHi > range.hi) {
     range.hi = bHi
     out.inlMaxCode = inlCodeOf(z, from, to, inl0, c0, c1, bHi)
@@ -152,5 +187,4 @@ function stringBucket(z: Float64Array, from: number, to: number, inl0: number, c
   if (env) {
     widenBucket(env, b, bLo, bHi)
   }
-  return inl
 }

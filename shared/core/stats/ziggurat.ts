@@ -43,6 +43,9 @@ function buildTables(): void {
 }
 buildTables()
 
+/** The layer tables (read-only): the WebAssembly generator copies them so both paths share every constant. */
+export const ZIGGURAT_TABLES = { KI, WN, FN } as const
+
 const TWO_POW_M32 = 2.3283064365386963e-10
 
 /** A seeded generator of standard normal deviates with a bulk `fill`. Not thread-shared. */

@@ -18,7 +18,7 @@ const shapeOf = (bits: number, id: string): CandidateShape => candidateShapes(bi
 const params = (sigmaUnit: number, extra: Partial<SamplerParams> = {}): SamplerParams => ({ sigmaUnit, switchRatio: 0, twoR: 'two-units', offsetSigma: 0, def: 'endpoint', ...extra })
 
 function mcYield(shape: CandidateShape, p: SamplerParams, trials: number, seed: number, inlT: number, dnlT: number) {
-  const [t] = runMonteCarloChunk({ seed, chunkIndex: 0, trials, bits: shape.bits, envelopePoints: 16, targets: { inlTargetLsb: inlT, dnlTargetLsb: dnlT, monotonicRequired: false } }, [createSampler(shape, p)])
+  const [t] = runMonteCarloChunk({ seed, chunkIndex: 0, trials, bits: shape.bits, envelopePoints: 16, envelope: true, targets: { inlTargetLsb: inlT, dnlTargetLsb: dnlT, monotonicRequired: false } }, [createSampler(shape, p)])
   return t!
 }
 

@@ -21,3 +21,11 @@ export const invitationTokenSchema = z.object({
 })
 
 export type InvitationCreate = z.infer<typeof invitationCreateSchema>
+
+/** An admin's change to a member: a new role, or deactivation / reactivation (at least one). */
+export const memberUpdateSchema = z.strictObject({
+  role: z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` }).optional(),
+  active: z.boolean({ error: 'must be true or false' }).optional()
+}).refine(b => b.role !== undefined || b.active !== undefined, { error: 'give a new role, active, or both', path: ['role'] })
+
+export type MemberUpdate = z.infer<typeof memberUpdateSchema>

@@ -86,6 +86,16 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
     expect: { signedOut: 401, admin: 201, architect: 403, engineer: 403, manager: 403, otherTeam: 201 },
     request: (_f, who) => ({ body: { email: `matrix-${who}-${Date.now()}@invite.example`, name: 'Matrix Invitee', role: 'engineer' } })
   },
+  {
+    // a fresh member of the demo team: its admin changes them, another team's admin cannot see them
+    route: 'PATCH /api/team/members/:id',
+    expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 404 },
+    request: async (f, who) => {
+      const team = (await f.db('teams').where({ slug: 'harrow-lake' }).first('id')).id
+      const [id] = await f.db('users').insert({ team_id: team, email: `matrix-member-${who}-${Date.now()}@members.example`, display_name: 'Matrix Member', password_hash: 'x', role: 'engineer' })
+      return { path: `/api/team/members/${id}`, body: { role: 'manager' } }
+    }
+  },
   { route: 'GET /api/invitations/:token', expect: { signedOut: 404 }, request: () => ({ path: '/api/invitations/unknown-token-0123456789abc' }) },
   {
     route: 'POST /api/invitations/:token/accept',

@@ -1,4 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto'
+import bcrypt from 'bcryptjs'
 import fc from 'fast-check'
 import type { Knex } from 'knex'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -22,6 +23,8 @@ const REQUEST_BOUND_MS = 20_000
 let db: Knex
 let adminCookie = ''
 let architectCookie = ''
+let teamAdminCookie = ''
+const cookieOf = (as: FuzzRow['as']) => (as === 'admin' ? adminCookie : as === 'architect' ? architectCookie : as === 'teamAdmin' ? teamAdminCookie : undefined)
 let attemptsBefore = 0
 const f = {} as FuzzFixtures
 
@@ -46,7 +49,18 @@ beforeAll(async () => {
   await db('invitations').insert({ team_id: admin.team_id, email: `fuzz-accept-${Date.now()}@invite.example`, display_name: 'Fuzz Accept', role: 'engineer', token_hash: createHash('sha256').update(f.invitationToken).digest('hex'), expires_at: new Date(Date.now() + 3_600_000), invited_by: admin.id })
   f.db = db
   await notesAndReviewFixtures(admin)
+  await memberFixtures()
 })
+
+/** A team of its own with an admin, whose fresh members the member row changes (never the demo team's). */
+async function memberFixtures() {
+  const stamp = `${Date.now()}-${SEED}`
+  const [teamId] = await db('teams').insert({ name: 'Fuzz Members Team', slug: `fuzz-members-${stamp}` })
+  const email = `fuzz-team-admin-${stamp}@members.example`
+  await db('users').insert({ team_id: teamId, email, display_name: 'Fuzz Team Admin', password_hash: await bcrypt.hash('fuzz-team-admin-pass', 4), role: 'admin' })
+  teamAdminCookie = await signIn(email, 'fuzz-team-admin-pass')
+  f.member = async () => (await db('users').insert({ team_id: teamId, email: `fuzz-member-${Date.now()}-${Math.floor(Math.random() * 1e9)}@members.example`, display_name: 'Fuzz Member', password_hash: 'x', role: 'engineer' }))[0]!
+}
 
 /** Arbitrary metric values in the output contract's shape (fixtures for reads and bench uploads, not physics). */
 function fixtureResults(candidateId: string) {
@@ -138,13 +152,13 @@ describe(`fuzzing every API route (seed ${SEED})`, () => {
         const sample = await row.sample(f)
         const path = template.replace(/:(\w+)/g, (_m, name: string) => encodeParam(sample.params?.[name] ?? ''))
         const query = new URLSearchParams(sample.query ?? {}).toString()
-        const res = await send(method, { path, query, body: method === 'GET' || method === 'DELETE' ? undefined : JSON.stringify(sample.body ?? {}) }, row.as === 'admin' ? adminCookie : row.as === 'architect' ? architectCookie : undefined)
+        const res = await send(method, { path, query, body: method === 'GET' || method === 'DELETE' ? undefined : JSON.stringify(sample.body ?? {}) }, cookieOf(row.as))
         expect(res.status, `${method} ${path}: ${JSON.stringify(res.body).slice(0, 300)}`).toBe(row.accepts)
       })
     }
     it(`${row.route}: 2xx or 4xx, a named field on 400, nothing written when refused`, async () => {
       const [method] = row.route.split(' ') as [string]
-      const cookie = row.as === 'admin' ? adminCookie : row.as === 'architect' ? architectCookie : undefined
+      const cookie = cookieOf(row.as)
       const sample = await row.sample(f)
       await fc.assert(fc.asyncProperty(attempts(row, sample), async (attempt) => {
         const before = await checksums(row.tables)

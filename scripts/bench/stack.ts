@@ -32,8 +32,13 @@ export async function startBenchDatabase(): Promise<BenchStack> {
   return stack
 }
 
+/**
+ * Starts the built server on the stack's database. The app reaches the database through its Unix
+ * socket (mysql2's socketPath), as a server on the same machine would; BENCH_DB_TCP=1 keeps TCP.
+ */
 export async function startServer(stack: BenchStack, env: Record<string, string> = {}): Promise<AppServer> {
-  stack.server = await startAppServer(stack.db.url, env)
+  const url = process.env.BENCH_DB_TCP === '1' ? stack.db.url : `${stack.db.url}?socketPath=${encodeURIComponent(`${stack.db.dir}/db.sock`)}`
+  stack.server = await startAppServer(url, env)
   return stack.server
 }
 

@@ -1,7 +1,7 @@
-import { evaluateInputSchema, type EvaluateOutput } from '#shared/core/contract/evaluate'
+import { evaluateInputSchema } from '#shared/core/contract/evaluate'
 
 /** Synchronous evaluation (fixed contract, for scripts): Monte Carlo runs on worker threads, under the user's heavy-request cap. */
-export default defineApiHandler(async (event): Promise<EvaluateOutput> => {
+export default defineApiHandler(async (event): Promise<string> => {
   const user = await requireUser(event)
   const input = await readBodyAs(event, evaluateInputSchema)
   const controller = new AbortController()
@@ -9,5 +9,8 @@ export default defineApiHandler(async (event): Promise<EvaluateOutput> => {
   event.node.res.once('close', () => {
     if (!event.node.res.writableFinished) controller.abort()
   })
-  return await withHeavySlot(user, 'evaluate', () => evaluateWithTeamPacks(user.teamId, input, controller.signal))
+  // The output (megabytes at 16 bits) arrives as JSON text serialised on a worker thread.
+  const json = await withHeavySlot(user, 'evaluate', async () => evaluateInPoolJson(input, { signal: controller.signal, packs: await enabledTeamPacks(user.teamId) }))
+  setResponseHeader(event, 'content-type', 'application/json')
+  return json
 })

@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs'
 import { availableParallelism } from 'node:os'
 import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
+import { gzipSync } from 'node:zlib'
 import { Piscina } from 'piscina'
 import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
@@ -44,12 +45,14 @@ function usePool(): Piscina | null {
   return pool
 }
 
-/** Runs one task in the pool (or inline when there is no pool), abortable. */
-function runTask(task: Task, signal?: AbortSignal): Promise<Part> {
+/** Runs one task in the pool as JSON text (or inline, as an object, when there is no pool), abortable. */
+function runTask(task: Task, signal?: AbortSignal): Promise<Part | string> {
   const p = usePool()
   if (!p) return Promise.resolve(runEvaluationTask(task))
-  return p.run(task, { signal }) as Promise<Part>
+  return p.run({ kind: 'json', task }, { signal }) as Promise<string>
 }
+
+const parsePart = (part: Part | string): Part => (typeof part === 'string' ? JSON.parse(part) as Part : part)
 
 export interface EvaluationProgress { done: number, total: number }
 
@@ -62,10 +65,19 @@ function nextTurn(): Promise<void> {
  * Merge plus rule packs: tens of milliseconds for a 16-bit sweep (the rules engine most), which
  * on the request thread delayed every request arriving meanwhile, so a worker does it too.
  */
-async function finish(input: EvaluateInput, parts: Part[], packs: readonly RulePack[], signal?: AbortSignal): Promise<EvaluateOutput> {
+type OutputForm = 'object' | 'json' | 'gzip'
+
+async function finish(input: EvaluateInput, parts: (Part | string)[], packs: readonly RulePack[], form: OutputForm, signal?: AbortSignal): Promise<EvaluateOutput | string | Uint8Array> {
   const p = usePool()
-  if (!p) return await applyFindings(input, mergeEvaluation(input, parts), packs)
-  return await (p.run({ kind: 'finish', input, parts, packs: [...packs] }, { signal }) as Promise<EvaluateOutput>)
+  if (!p) {
+    const output = await applyFindings(input, mergeEvaluation(input, parts.map(parsePart)), packs)
+    return form === 'gzip' ? gzipSync(JSON.stringify(output), { level: 3 }) : form === 'json' ? JSON.stringify(output) : output
+  }
+  const partsJson = parts.every(x => typeof x === 'string') ? parts as string[] : undefined
+  const as = form === 'object' ? undefined : form
+  const out = await p.run({ kind: 'finish', input, partsJson, parts: partsJson ? undefined : parts.map(parsePart), packs: [...packs], as }, { signal }) as EvaluateOutput | string | Uint8Array
+  // a Buffer comes back from the worker as a plain Uint8Array
+  return form === 'gzip' ? Buffer.from((out as Uint8Array).buffer, (out as Uint8Array).byteOffset, (out as Uint8Array).byteLength) : out
 }
 
 /**
@@ -74,7 +86,27 @@ async function finish(input: EvaluateInput, parts: Part[], packs: readonly RuleP
  * The merged output then gets findings, ranking and recommendation from the built-in rule packs
  * plus `packs` (the team's enabled ones), also on a worker thread.
  */
-export async function evaluateInPool(input: EvaluateInput, options: { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void>, packs?: readonly RulePack[] } = {}): Promise<EvaluateOutput> {
+export async function evaluateInPool(input: EvaluateInput, options: PoolOptions = {}): Promise<EvaluateOutput> {
+  return await evaluateAll(input, options, 'object') as EvaluateOutput
+}
+
+/**
+ * `evaluateInPool`, answered as the output's JSON text, which a worker serialises: for callers
+ * that store or send it as it is (evaluation jobs, POST /api/evaluate), so a 16-bit output of
+ * megabytes is never walked on the request thread.
+ */
+export async function evaluateInPoolJson(input: EvaluateInput, options: PoolOptions = {}): Promise<string> {
+  return await evaluateAll(input, options, 'json') as string
+}
+
+/** `evaluateInPoolJson`, gzip-compressed on the worker (what a job stores). */
+export async function evaluateInPoolGzip(input: EvaluateInput, options: PoolOptions = {}): Promise<Buffer> {
+  return await evaluateAll(input, options, 'gzip') as Buffer
+}
+
+interface PoolOptions { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void>, packs?: readonly RulePack[] }
+
+async function evaluateAll(input: EvaluateInput, options: PoolOptions, form: OutputForm): Promise<EvaluateOutput | string | Uint8Array> {
   const tasks = planEvaluation(input)
   // Every queued task listens on the one signal.
   if (options.signal) setMaxListeners(tasks.length + 10, options.signal)
@@ -85,7 +117,7 @@ export async function evaluateInPool(input: EvaluateInput, options: { signal?: A
     await options.onProgress?.({ done, total: tasks.length })
     return part
   }))
-  const output = await finish(input, parts, options.packs ?? [], options.signal)
+  const output = await finish(input, parts, options.packs ?? [], form, options.signal)
   await nextTurn()
   return output
 }

@@ -49,14 +49,15 @@ function invalidEvaluation(message: string) {
  * (a revision never pairs inputs with another input's results).
  */
 export async function evaluationResults(trx: Knex.Transaction, teamId: number, evaluationId: number, inputs: object): Promise<{ results: EvaluateOutput, engineVersion: string }> {
-  const row = await trx('evaluations').where({ id: evaluationId, team_id: teamId }).first('status', 'input', 'result', 'engine_version')
+  const row = await trx('evaluations').where({ id: evaluationId, team_id: teamId }).first('status', 'input', ...EVALUATION_RESULT_COLUMNS, 'engine_version')
   if (!row) throw invalidEvaluation('no such evaluation in your team')
-  if (row.status !== 'done' || row.result === null) throw invalidEvaluation(`must be a finished evaluation (this one is ${row.status})`)
+  const results = row.status === 'done' ? evaluationResultOf<EvaluateOutput>(row) : null
+  if (!results) throw invalidEvaluation(`must be a finished evaluation (this one is ${row.status})`)
   const input = evaluateInputSchema.safeParse(json(row.input))
   if (!input.success || canonicalJson(input.data) !== canonicalJson(inputs)) {
     throw invalidEvaluation('was computed for other inputs than the ones being saved; run it again')
   }
-  return { results: json(row.result), engineVersion: row.engine_version }
+  return { results, engineVersion: row.engine_version }
 }
 
 /** Engineers edit their own studies; architects and admins edit every study of the team. */

@@ -8,13 +8,14 @@ import type { RulePackDryRunDto } from '#shared/types/rulePacks'
 
 async function sampleOf(teamId: number, body: RulePackDryRun): Promise<{ input: EvaluateInput, output: EvaluateOutput, sample: RulePackDryRunDto['sample'] }> {
   if (body.evaluationId !== undefined) {
-    const row = await useDb()('evaluations').where({ id: body.evaluationId, team_id: teamId, status: 'done' }).first('input', 'result')
-    if (!row?.result) {
+    const row = await useDb()('evaluations').where({ id: body.evaluationId, team_id: teamId, status: 'done' }).first('input', ...EVALUATION_RESULT_COLUMNS)
+    const output = row ? evaluationResultOf<EvaluateOutput>(row) : null
+    if (!row || !output) {
       const message = 'evaluationId: must be the id of one of your team\'s finished evaluations'
       throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: 'evaluationId', message: 'must be the id of one of your team\'s finished evaluations' }] } })
     }
     const json = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v)
-    return { input: evaluateInputSchema.parse(json(row.input)), output: json(row.result) as EvaluateOutput, sample: 'evaluation' }
+    return { input: evaluateInputSchema.parse(json(row.input)), output, sample: 'evaluation' }
   }
   const input = body.input ?? evaluateInputSchema.parse(SAMPLE_DRY_RUN_INPUT)
   return { input, output: await evaluateInPool(input), sample: body.input ? 'input' : 'sample' }

@@ -1,5 +1,4 @@
 import type { Knex } from 'knex'
-import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
 import { BUILT_IN_PACKS } from '#shared/findings/registry'
 import type { RulePack, RulePackDocument } from '#shared/findings/schema'
 import { checkRulePack } from '#shared/findings/validate'
@@ -50,9 +49,4 @@ export async function enabledTeamPacks(teamId: number): Promise<RulePack[]> {
 /** Appends one history row (inside the write's transaction). */
 export async function writePackVersion(trx: Knex.Transaction, rulePackId: number, version: number, pack: RulePackDocument, enabled: boolean, authorId: number, change: string): Promise<void> {
   await trx('rule_pack_versions').insert({ rule_pack_id: rulePackId, version, pack: JSON.stringify(pack), enabled, author_id: authorId, change })
-}
-
-/** Evaluates in the pool and applies the built-in packs plus the team's enabled ones. */
-export async function evaluateWithTeamPacks(teamId: number, input: EvaluateInput, signal?: AbortSignal): Promise<EvaluateOutput> {
-  return await evaluateInPool(input, { signal, packs: await enabledTeamPacks(teamId) })
 }

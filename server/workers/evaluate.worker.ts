@@ -8,6 +8,7 @@
  */
 import './require-shim'
 import { setPriority } from 'node:os'
+import { gzipSync } from 'node:zlib'
 import type { EvaluateInput } from '../../shared/core/contract/evaluate'
 import type { NetlistInput } from '../../shared/core/contract/netlist'
 import { exportNetlist } from '../../shared/core/netlist/export'
@@ -23,12 +24,29 @@ try {
   // not permitted or not supported: run at normal priority
 }
 
-/** The last step of an evaluation: merge the parts and apply the built-in and team rule packs. */
+/**
+ * The last step of an evaluation: merge the parts and apply the built-in and team rule packs.
+ * Parts come as the JSON text the tasks returned (`partsJson`) or as objects (`parts`); with
+ * `asJson` the output goes back as JSON text too.
+ */
 export interface FinishTask {
   kind: 'finish'
   input: EvaluateInput
-  parts: EvaluationPart[]
+  parts?: EvaluationPart[]
+  partsJson?: string[]
   packs: RulePack[]
+  /** 'json': the output as JSON text; 'gzip': that text gzip-compressed (a Buffer); else the object */
+  as?: 'json' | 'gzip'
+}
+
+/**
+ * One evaluation task whose part comes back as JSON text: a string crosses the thread boundary as
+ * one copy, where a part's nested arrays and objects cost the request thread a structured-clone
+ * walk on arrival and another when they are handed to the finishing step.
+ */
+export interface JsonTask {
+  kind: 'json'
+  task: EvaluationTask
 }
 
 /** A netlist export, answered as JSON text (POST /api/netlist). */
@@ -38,10 +56,14 @@ export interface NetlistTask {
 }
 
 /** Runs one evaluation task (pure, synchronous), the finishing step or a netlist export. */
-export default function run(task: EvaluationTask | FinishTask | NetlistTask): EvaluationPart | string | Promise<EvaluateOutputWithFindings> {
+export default async function run(task: EvaluationTask | JsonTask | FinishTask | NetlistTask): Promise<EvaluationPart | string | Buffer | EvaluateOutputWithFindings> {
   if (task.kind === 'netlist') return JSON.stringify(exportNetlist(task.input))
+  if (task.kind === 'json') return JSON.stringify(runEvaluationTask(task.task))
   if (task.kind === 'finish') {
-    return applyFindings(task.input, mergeEvaluation(task.input, task.parts), task.packs)
+    const parts = task.partsJson ? task.partsJson.map(p => JSON.parse(p) as EvaluationPart) : task.parts ?? []
+    const output = await applyFindings(task.input, mergeEvaluation(task.input, parts), task.packs)
+    if (task.as === 'gzip') return gzipSync(JSON.stringify(output), { level: 3 })
+    return task.as === 'json' ? JSON.stringify(output) : output
   }
   return runEvaluationTask(task)
 }

@@ -90,6 +90,10 @@ describe('evaluation jobs', () => {
     const direct = await api<Output>('/api/evaluate', { method: 'POST', cookie: engineer, body: input(8, 200) })
     expect(job.result!.candidates.map(c => c.metrics.totalAreaMm2)).toEqual(direct.body.candidates.map(c => c.metrics.totalAreaMm2))
     expect(job.result!.candidates.map(c => c.metrics.dnlYield)).toEqual(direct.body.candidates.map(c => c.metrics.dnlYield))
+    // stored gzip-compressed (a worker compresses it), a fraction of the JSON text the API returns
+    const row = await db('evaluations').where({ id: started.body.id }).first('result', 'result_gz')
+    expect(row.result).toBeNull()
+    expect(row.result_gz.length).toBeLessThan(JSON.stringify(job.result).length / 3)
   })
 
   it('cancels a running job for its owner; another member gets 403 and another team 404', async () => {

@@ -18,7 +18,9 @@ export interface AppServer {
 export async function startAppServer(databaseUrl: string, env: Record<string, string> | ((port: number) => Record<string, string>) = {}): Promise<AppServer> {
   if (!existsSync(SERVER_ENTRY)) throw new Error('No build found: run `npx nuxi build` first (npm test does it)')
   const port = await freePort()
-  const child = spawn(process.execPath, [SERVER_ENTRY], {
+  // APP_SERVER_NODE_ARGS: extra node flags for the server, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof" (profiling a bench)
+  const nodeArgs = (process.env.APP_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean)
+  const child = spawn(process.execPath, [...nodeArgs, SERVER_ENTRY], {
     env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), NUXT_DATABASE_URL: databaseUrl, NUXT_AUTH_SECRET: 'test-secret-0123456789-abcdefghijklmnop', NUXT_APP_URL: `http://127.0.0.1:${port}`, ...(typeof env === 'function' ? env(port) : env) },
     stdio: ['ignore', 'pipe', 'pipe']
   })

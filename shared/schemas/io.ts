@@ -1,6 +1,7 @@
 import { z } from 'zod'
+import { rangedInteger } from './study'
 import { MAX_SAMPLE_INDEX } from '../core/contract/netlist'
-import { intInRange, says } from '../core/contract/fields'
+import { says } from '../core/contract/fields'
 import { MAX_BENCH_CHARS } from '../io/benchCsv'
 
 /** Most characters of an import file (200 CSV lines or a study document with its results). */
@@ -27,11 +28,11 @@ export const benchBodySchema = z.strictObject({
 /** Query of `GET /api/studies/:id/netlist`: a candidate of the current revision, nominal or one sample. */
 export const netlistQuerySchema = z.object({
   candidate: z.string(says('must be a candidate id such as "segmented-m4"')).regex(/^[a-z0-9-]{1,60}$/, says('must be a candidate id such as "segmented-m4"')),
-  seed: z.coerce.number(says('must be an integer from 0 to 4294967295')).pipe(intInRange(0, 2 ** 32 - 1)).optional(),
-  index: z.coerce.number(says(`must be an integer from 0 to ${MAX_SAMPLE_INDEX}`)).pipe(intInRange(0, MAX_SAMPLE_INDEX)).optional()
+  seed: rangedInteger(0, 2 ** 32 - 1, true).optional(),
+  index: rangedInteger(0, MAX_SAMPLE_INDEX, true).optional()
 })
 
 export const benchParamsSchema = z.object({
-  id: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1)),
-  benchId: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1))
+  id: rangedInteger(1, 2 ** 31 - 1, true),
+  benchId: rangedInteger(1, 2 ** 31 - 1, true)
 })

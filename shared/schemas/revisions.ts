@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { rangedInteger } from './study'
 import { evaluateInputSchema, maxTrialsFor } from '../core/contract/evaluate'
 import { intInRange, says } from '../core/contract/fields'
 import { rankingWeightsSchema } from '../findings/weights'
@@ -28,13 +29,13 @@ export const revisionCreateSchema = z.strictObject({
 })
 
 export const revisionParamsSchema = z.object({
-  id: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1)),
-  n: z.coerce.number(says('must be an integer from 1 to 2147483647')).pipe(intInRange(1, 2 ** 31 - 1))
+  id: rangedInteger(1, 2 ** 31 - 1, true),
+  n: rangedInteger(1, 2 ** 31 - 1, true)
 })
 
 export const revisionCompareQuerySchema = z.object({
-  from: z.coerce.number(says('must be a revision number from 1')).pipe(intInRange(1, 2 ** 31 - 1)),
-  to: z.coerce.number(says('must be a revision number from 1')).pipe(intInRange(1, 2 ** 31 - 1))
+  from: rangedInteger(1, 2 ** 31 - 1, true),
+  to: rangedInteger(1, 2 ** 31 - 1, true)
 })
 
 export type RevisionCreate = z.infer<typeof revisionCreateSchema>

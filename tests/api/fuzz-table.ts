@@ -25,7 +25,7 @@ export interface FuzzFixtures {
   attachment: () => Promise<number>
   study: (status?: 'draft' | 'in_review' | 'signed_off' | 'decided') => Promise<{ id: number, signOffId: number | null }>
   bench: (studyId: number) => Promise<number>
-  /** a fresh engineer of the teamAdmin's team */
+  /** a fresh engineer of the fuzz team */
   member: () => Promise<number>
   architectId: number
 }
@@ -38,8 +38,8 @@ export interface FuzzSample {
 
 export interface FuzzRow {
   route: string
-  /** teamAdmin: the admin of a team of its own (rows that change members must not reach the demo team's) */
-  as: 'admin' | 'architect' | 'teamAdmin' | 'signedOut'
+  /** admin and architect of the fuzz spec's own team (see fuzzTeam in fuzz.spec.ts), or no session */
+  as: 'admin' | 'architect' | 'signedOut'
   sample: (f: FuzzFixtures) => FuzzSample | Promise<FuzzSample>
   /** tables compared with CHECKSUM TABLE before and after every refused request */
   tables: string[]
@@ -116,7 +116,7 @@ export const FUZZ_TABLE: FuzzRow[] = [
   { route: 'POST /api/rule-packs/dry-run', as: 'admin', sample: () => ({ body: { pack: matrixPack('fuzz'), input: EVALUATE } }), tables: PACK_TABLES, weight: 0.5 },
   { route: 'GET /api/team', as: 'admin', sample: () => ({}), tables: [] },
   { route: 'POST /api/team/invitations', as: 'admin', sample: () => ({ body: { email: `fuzz-${Date.now()}-${Math.floor(Math.random() * 1e9)}@invite.example`, name: 'Fuzz Invitee', role: 'engineer' } }), tables: ['invitations', 'users', 'audit_log'] },
-  { route: 'PATCH /api/team/members/:id', accepts: 200, as: 'teamAdmin', sample: async f => ({ params: id(await f.member()), body: { role: 'architect', active: true } }), tables: ['users', 'sessions', 'audit_log'] },
+  { route: 'PATCH /api/team/members/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id(await f.member()), body: { role: 'architect', active: true } }), tables: ['users', 'sessions', 'audit_log'] },
   { route: 'GET /api/invitations/:token', as: 'signedOut', sample: f => ({ params: { token: f.invitationToken } }), tables: [] },
   { route: 'POST /api/invitations/:token/accept', as: 'signedOut', sample: f => ({ params: { token: f.invitationToken }, body: { password: 'a-long-enough-password' } }), tables: ['invitations', 'users', 'audit_log'] },
   { route: 'GET /api/admin/mail', as: 'admin', sample: () => ({}), tables: [] },

@@ -5,7 +5,7 @@ import type { Knex } from 'knex'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { testDb } from '../support/db'
 import { applyMutation, encodeParam, mutationOf, nastyParam, queryMutationOf } from '../support/fuzz'
-import { api, DEMO, signIn } from '../support/http'
+import { api, signIn } from '../support/http'
 import { routesOnDisk } from '../support/routes'
 import { matrixPack } from './authorization-rule-packs'
 import { FUZZ_TABLE, SPEC, type FuzzFixtures, type FuzzRow, type FuzzSample } from './fuzz-table'
@@ -23,16 +23,18 @@ const REQUEST_BOUND_MS = 20_000
 let db: Knex
 let adminCookie = ''
 let architectCookie = ''
-let teamAdminCookie = ''
-const cookieOf = (as: FuzzRow['as']) => (as === 'admin' ? adminCookie : as === 'architect' ? architectCookie : as === 'teamAdmin' ? teamAdminCookie : undefined)
+const cookieOf = (as: FuzzRow['as']) => (as === 'admin' ? adminCookie : as === 'architect' ? architectCookie : undefined)
 let attemptsBefore = 0
 const f = {} as FuzzFixtures
 
 beforeAll(async () => {
   console.info(`[fuzz] seed ${SEED}, ${RUNS} runs per route (FUZZ_SEED / FUZZ_RUNS to change)`)
   db = testDb()
-  adminCookie = await signIn(DEMO.admin)
-  architectCookie = await signIn(DEMO.architect)
+  // Everything runs in a team of its own: a mutated path parameter that names a demo record (or
+  // another spec file's) is another team's, so it gets 404 and is never changed or deleted.
+  const team = await fuzzTeam()
+  adminCookie = team.adminCookie
+  architectCookie = team.architectCookie
   attemptsBefore = Number((await db('sign_in_attempts').max({ id: 'id' }))[0]?.id ?? 0)
   const study = await api<{ id: number }>('/api/studies', { method: 'POST', cookie: adminCookie, body: { title: 'Fuzz study', spec: SPEC } })
   f.studyId = study.body.id
@@ -43,23 +45,26 @@ beforeAll(async () => {
   const pack = matrixPack('fuzz-fixture')
   f.packRowId = (await api<{ id: number }>('/api/rule-packs', { method: 'POST', cookie: adminCookie, body: { pack } })).body.id
   f.packId = pack.id
-  const admin = await db('users').where({ email: DEMO.admin }).first('id', 'team_id')
+  const admin = await db('users').where({ email: team.emails.admin }).first('id', 'team_id')
   f.jobId = (await db('evaluations').insert({ team_id: admin.team_id, user_id: admin.id, status: 'done', tasks_total: 1, tasks_done: 1, input: JSON.stringify({}), engine_version: 'fuzz' }))[0]!
   f.invitationToken = randomBytes(32).toString('base64url')
   await db('invitations').insert({ team_id: admin.team_id, email: `fuzz-accept-${Date.now()}@invite.example`, display_name: 'Fuzz Accept', role: 'engineer', token_hash: createHash('sha256').update(f.invitationToken).digest('hex'), expires_at: new Date(Date.now() + 3_600_000), invited_by: admin.id })
   f.db = db
-  await notesAndReviewFixtures(admin)
-  await memberFixtures()
+  await notesAndReviewFixtures(admin, team.emails)
+  f.member = async () => (await db('users').insert({ team_id: admin.team_id, email: `fuzz-member-${Date.now()}-${Math.floor(Math.random() * 1e9)}@fuzz.example`, display_name: 'Fuzz Member', password_hash: 'x', role: 'engineer' }))[0]!
 })
 
-/** A team of its own with an admin, whose fresh members the member row changes (never the demo team's). */
-async function memberFixtures() {
+/** The fuzz team: an admin, an architect and an engineer (signed in: admin and architect). */
+async function fuzzTeam() {
   const stamp = `${Date.now()}-${SEED}`
-  const [teamId] = await db('teams').insert({ name: 'Fuzz Members Team', slug: `fuzz-members-${stamp}` })
-  const email = `fuzz-team-admin-${stamp}@members.example`
-  await db('users').insert({ team_id: teamId, email, display_name: 'Fuzz Team Admin', password_hash: await bcrypt.hash('fuzz-team-admin-pass', 4), role: 'admin' })
-  teamAdminCookie = await signIn(email, 'fuzz-team-admin-pass')
-  f.member = async () => (await db('users').insert({ team_id: teamId, email: `fuzz-member-${Date.now()}-${Math.floor(Math.random() * 1e9)}@members.example`, display_name: 'Fuzz Member', password_hash: 'x', role: 'engineer' }))[0]!
+  const [teamId] = await db('teams').insert({ name: 'Fuzz Team', slug: `fuzz-${stamp}` })
+  const password = 'fuzz-team-password'
+  const hash = await bcrypt.hash(password, 4)
+  const emails = { admin: `fuzz-admin-${stamp}@fuzz.example`, architect: `fuzz-architect-${stamp}@fuzz.example`, engineer: `fuzz-engineer-${stamp}@fuzz.example` }
+  for (const role of ['admin', 'architect', 'engineer'] as const) {
+    await db('users').insert({ team_id: teamId, email: emails[role], display_name: `Fuzz ${role}`, password_hash: hash, role })
+  }
+  return { emails, adminCookie: await signIn(emails.admin, password), architectCookie: await signIn(emails.architect, password) }
 }
 
 /** Arbitrary metric values in the output contract's shape (fixtures for reads and bench uploads, not physics). */
@@ -68,9 +73,9 @@ function fixtureResults(candidateId: string) {
   return { engineVersion: 'fuzz', candidates: [{ id: candidateId, topology: candidateId, unaryBits: null, metrics: { resistorCount: 9, totalAreaMm2: 0.01 }, meetsSpec: true, failing: [], linearity: { definition: 'endpoint', monteCarlo: null }, glitch: { perTransition: series }, reference: { irefA: series, rinOhm: series }, output: { routOhm: series } }], cautions: [] }
 }
 
-async function notesAndReviewFixtures(admin: { id: number, team_id: number }) {
-  const engineer = await db('users').where({ email: DEMO.engineer }).first('id')
-  f.architectId = (await db('users').where({ email: DEMO.architect }).first('id')).id
+async function notesAndReviewFixtures(admin: { id: number, team_id: number }, emails: { architect: string, engineer: string }) {
+  const engineer = await db('users').where({ email: emails.engineer }).first('id')
+  f.architectId = (await db('users').where({ email: emails.architect }).first('id')).id
   f.note = async (resolved = false) => {
     const res = await api<{ id: number }>(`/api/studies/${f.studyId}/notes`, { method: 'POST', cookie: adminCookie, body: { body: 'Fuzz note' } })
     expect(res.status).toBe(201)

@@ -40,6 +40,7 @@ skip-name-resolve
 socket=$SOCK
 pid-file=$DIR/run/mariadb.pid
 datadir=$DIR/data
+tmpdir=$DIR
 log-error=$DIR/mariadb.err
 character-set-server=utf8mb4
 collation-server=utf8mb4_unicode_ci

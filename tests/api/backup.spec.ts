@@ -37,14 +37,18 @@ async function snapshot(db: Knex): Promise<Record<string, { rows: number, checks
 }
 
 beforeAll(async () => {
-  ;[source, target] = await Promise.all([startTestDatabase(), startTestDatabase()])
+  // Both start at once; if one fails, the other is still kept for afterAll to stop.
+  const started = await Promise.allSettled([startTestDatabase(), startTestDatabase()])
+  if (started[0].status === 'fulfilled') source = started[0].value
+  if (started[1].status === 'fulfilled') target = started[1].value
+  for (const s of started) if (s.status === 'rejected') throw s.reason
   dir = mkdtempSync(join(tmpdir(), 'rw-backup-test-'))
   for (const command of ['latest', 'seed']) {
     await exec(process.execPath, ['--import', 'tsx', 'scripts/migrate.ts', command], { cwd: root, env: { ...process.env, NUXT_DATABASE_URL: source.url } })
   }
 }, 180_000)
 afterAll(async () => {
-  await Promise.all([destroyTestDatabase(source), destroyTestDatabase(target)])
+  await Promise.all([source, target].filter(Boolean).map(db => destroyTestDatabase(db)))
   rmSync(dir, { recursive: true, force: true })
 })
 

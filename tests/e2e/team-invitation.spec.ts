@@ -61,6 +61,7 @@ describe('inviting a team member', () => {
     await expect.poll(() => invitePage.getByTestId('current-role').textContent()).toContain('Architect')
     // The admin makes the new member a program manager; the member's next page load shows it.
     await page.goto('/team')
+    await page.locator('[data-testid="member-table"][data-ready]').waitFor({ timeout: 60_000 })
     await page.getByLabel('Role of Morgan Fell').selectOption('manager')
     await expect.poll(() => page.getByTestId('member-notice').textContent()).toContain('Morgan Fell is now Program manager')
     await page.screenshot({ path: `${ARTIFACTS}/team-members.png`, fullPage: true })

@@ -69,7 +69,9 @@ export async function startTestDatabase(extra: string[] = []): Promise<TestDatab
   const runAs = process.getuid?.() === 0 ? 'user=root' : ''
   writeFileSync(cnf, [
     '[client]', `port=${port}`, `socket=${dir}/db.sock`, '[mariadbd]', runAs, `port=${port}`, 'bind-address=127.0.0.1',
-    'skip-name-resolve', `socket=${dir}/db.sock`, `pid-file=${dir}/db.pid`, `datadir=${dir}/data`, `log-error=${dir}/db.err`,
+    // tmpdir of its own: a starting instance deletes the '#sql' files it finds in its tmpdir, so with a
+    // shared /tmp one test instance removed another's temporary tables (mariadb-install-db then failed)
+    'skip-name-resolve', `socket=${dir}/db.sock`, `pid-file=${dir}/db.pid`, `datadir=${dir}/data`, `log-error=${dir}/db.err`, `tmpdir=${dir}`,
     'character-set-server=utf8mb4', 'collation-server=utf8mb4_unicode_ci', 'innodb-flush-log-at-trx-commit=0',
     'innodb-doublewrite=0', 'max_connections=300', 'max_allowed_packet=256M', ...extra, ''
   ].join('\n'))

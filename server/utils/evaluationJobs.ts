@@ -1,3 +1,4 @@
+import type { Knex } from 'knex'
 import type { EvaluateInput } from '#shared/core/contract/evaluate'
 import { ENGINE_VERSION } from '#shared/core/version'
 import type { SessionUser } from '#shared/types/auth'
@@ -13,6 +14,12 @@ const PROGRESS_EVERY_MS = 250
 // Abort handles of the jobs this instance runs (cancel from another instance goes through the row).
 const running = new Map<number, AbortController>()
 
+/** Queued or running jobs of one user. */
+async function activeJobs(db: Knex | Knex.Transaction, userId: number): Promise<number> {
+  const rows = await db('evaluations').where({ user_id: userId }).whereIn('status', ['queued', 'running']).count({ n: '*' })
+  return Number(rows[0]?.n ?? 0)
+}
+
 function tooManyJobs() {
   return createError({ statusCode: 429, statusMessage: 'Too many evaluations running', message: `At most ${MAX_ACTIVE_JOBS_PER_USER} evaluations may run at once per user; wait for one to finish or cancel it` })
 }
@@ -23,12 +30,10 @@ export async function startEvaluationJob(user: SessionUser, input: EvaluateInput
   // script retrying in a loop would otherwise queue on that lock). Below the cap, the user's row
   // lock serialises the count and the insert, so concurrent requests (on any instance) cannot
   // both pass it.
-  const activeNow = await useDb()('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
-  if (Number(activeNow[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) throw tooManyJobs()
+  if (await activeJobs(useDb(), user.id) >= MAX_ACTIVE_JOBS_PER_USER) throw tooManyJobs()
   const id = await writeTransaction(async (trx) => {
     await trx('users').where({ id: user.id }).forUpdate().first('id')
-    const active = await trx('evaluations').where({ user_id: user.id }).whereIn('status', ['queued', 'running']).count({ n: '*' })
-    if (Number(active[0]?.n ?? 0) >= MAX_ACTIVE_JOBS_PER_USER) throw tooManyJobs()
+    if (await activeJobs(trx, user.id) >= MAX_ACTIVE_JOBS_PER_USER) throw tooManyJobs()
     const [inserted] = await trx('evaluations').insert({
       team_id: user.teamId, user_id: user.id, status: 'queued', tasks_total: evaluationTaskCount(input),
       input: JSON.stringify(input), engine_version: ENGINE_VERSION

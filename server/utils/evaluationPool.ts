@@ -3,10 +3,10 @@ import { existsSync } from 'node:fs'
 import { availableParallelism } from 'node:os'
 import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
-import { gzipSync } from 'node:zlib'
 import { Piscina } from 'piscina'
 import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
 import { runInSlots } from '#shared/core/evaluation/dispatch'
+import { encodeEvaluationOutput, type OutputForm } from './evaluationResult'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
 import type { NetlistInput } from '#shared/core/contract/netlist'
 import { exportNetlist } from '#shared/core/netlist/export'
@@ -66,17 +66,11 @@ function nextTurn(): Promise<void> {
  * Merge plus rule packs: tens of milliseconds for a 16-bit sweep (the rules engine most), which
  * on the request thread delayed every request arriving meanwhile, so a worker does it too.
  */
-type OutputForm = 'object' | 'json' | 'gzip'
-
 async function finish(input: EvaluateInput, parts: (Part | string)[], packs: readonly RulePack[], form: OutputForm, signal?: AbortSignal): Promise<EvaluateOutput | string | Uint8Array> {
   const p = usePool()
-  if (!p) {
-    const output = await applyFindings(input, mergeEvaluation(input, parts.map(parsePart)), packs)
-    return form === 'gzip' ? gzipSync(JSON.stringify(output), { level: 3 }) : form === 'json' ? JSON.stringify(output) : output
-  }
-  const partsJson = parts.every(x => typeof x === 'string') ? parts as string[] : undefined
-  const as = form === 'object' ? undefined : form
-  const out = await p.run({ kind: 'finish', input, partsJson, parts: partsJson ? undefined : parts.map(parsePart), packs: [...packs], as }, { signal }) as EvaluateOutput | string | Uint8Array
+  if (!p) return encodeEvaluationOutput(await applyFindings(input, mergeEvaluation(input, parts.map(parsePart)), packs), form)
+  const partsJson = parts.map(x => (typeof x === 'string' ? x : JSON.stringify(x)))
+  const out = await p.run({ kind: 'finish', input, partsJson, packs: [...packs], as: form }, { signal }) as EvaluateOutput | string | Uint8Array
   // a Buffer comes back from the worker as a plain Uint8Array
   return form === 'gzip' ? Buffer.from((out as Uint8Array).buffer, (out as Uint8Array).byteOffset, (out as Uint8Array).byteLength) : out
 }

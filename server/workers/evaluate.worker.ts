@@ -8,7 +8,6 @@
  */
 import './require-shim'
 import { setPriority } from 'node:os'
-import { gzipSync } from 'node:zlib'
 import type { EvaluateInput } from '../../shared/core/contract/evaluate'
 import type { NetlistInput } from '../../shared/core/contract/netlist'
 import { exportNetlist } from '../../shared/core/netlist/export'
@@ -17,6 +16,7 @@ import { mergeEvaluation, runEvaluationTask } from '../../shared/core/evaluate'
 import type { EvaluateOutputWithFindings } from '../../shared/findings/index'
 import { applyFindings } from '../../shared/findings/index'
 import type { RulePack } from '../../shared/findings/schema'
+import { encodeEvaluationOutput, type OutputForm } from '../utils/evaluationResult'
 
 try {
   setPriority(10)
@@ -26,17 +26,14 @@ try {
 
 /**
  * The last step of an evaluation: merge the parts and apply the built-in and team rule packs.
- * Parts come as the JSON text the tasks returned (`partsJson`) or as objects (`parts`); with
- * `asJson` the output goes back as JSON text too.
+ * The parts come as the JSON text the tasks returned; `as` is the form the output goes back in.
  */
 export interface FinishTask {
   kind: 'finish'
   input: EvaluateInput
-  parts?: EvaluationPart[]
-  partsJson?: string[]
+  partsJson: string[]
   packs: RulePack[]
-  /** 'json': the output as JSON text; 'gzip': that text gzip-compressed (a Buffer); else the object */
-  as?: 'json' | 'gzip'
+  as: OutputForm
 }
 
 /**
@@ -60,10 +57,8 @@ export default async function run(task: EvaluationTask | JsonTask | FinishTask |
   if (task.kind === 'netlist') return JSON.stringify(exportNetlist(task.input))
   if (task.kind === 'json') return JSON.stringify(runEvaluationTask(task.task))
   if (task.kind === 'finish') {
-    const parts = task.partsJson ? task.partsJson.map(p => JSON.parse(p) as EvaluationPart) : task.parts ?? []
-    const output = await applyFindings(task.input, mergeEvaluation(task.input, parts), task.packs)
-    if (task.as === 'gzip') return gzipSync(JSON.stringify(output), { level: 3 })
-    return task.as === 'json' ? JSON.stringify(output) : output
+    const parts = task.partsJson.map(p => JSON.parse(p) as EvaluationPart)
+    return encodeEvaluationOutput(await applyFindings(task.input, mergeEvaluation(task.input, parts), task.packs), task.as)
   }
   return runEvaluationTask(task)
 }

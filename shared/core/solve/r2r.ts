@@ -85,7 +85,7 @@ export function solveR2rCurrent(c: R2rCurrentInput | (LadderValues & { vrefV: nu
   const sw = c.switchOhm ?? 0
   // node voltages per volt at node 0 are x_i / x_0 of the voltage-mode chain: I_leg,i = V_REF w_i / R_00
   const rIn = ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
-  const value = r2rCurrentLevels(c)
+  const value = currentLevels(c, rIn)
   const irefA = new Float64Array(codes).fill(c.vrefV / rIn)
   const g = legConductances(c)
   const { shunt, series } = ladderChain(c, g, true)
@@ -103,8 +103,11 @@ export function r2rVoltageLevels(c: LadderValues & { vrefV: number }): Float64Ar
 
 /** The output currents of `solveR2rCurrent` alone (no R_out). */
 export function r2rCurrentLevels(c: LadderValues & { vrefV: number }): Float64Array {
-  const sw = c.switchOhm ?? 0
-  const rIn = ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
-  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, sw)
+  return currentLevels(c, ladderRoutOhm(c.legsOhm, c.seriesOhm, c.terminationOhm, c.switchOhm ?? 0))
+}
+
+/** I_OUT(k) = Σ b_i w_i V_REF / R_in, given R_in. */
+function currentLevels(c: LadderValues & { vrefV: number }, rIn: number): Float64Array {
+  const w = ladderWeights(c.legsOhm, c.seriesOhm, c.terminationOhm, c.switchOhm ?? 0)
   return linearAllCodes(w, c.vrefV / rIn, new Float64Array(2 ** c.legsOhm.length))
 }

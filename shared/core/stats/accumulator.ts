@@ -123,9 +123,18 @@ export function mergeTally(a: McTally, b: McTally): McTally {
     inlHist: sum(a.inlHist, b.inlHist),
     dnlHist: sum(a.dnlHist, b.dnlHist),
     worstCodeHist: sum(a.worstCodeHist, b.worstCodeHist),
-    // a chunk that kept no envelope sends none (empty arrays): the other side's is the envelope
-    envelopeMin: b.envelopeTrials === 0 ? a.envelopeMin : a.envelopeTrials === 0 ? b.envelopeMin : a.envelopeMin.map((v, i) => Math.min(v, b.envelopeMin[i]!)),
-    envelopeMax: b.envelopeTrials === 0 ? a.envelopeMax : a.envelopeTrials === 0 ? b.envelopeMax : a.envelopeMax.map((v, i) => Math.max(v, b.envelopeMax[i]!)),
-    envelopeTrials: a.envelopeTrials + b.envelopeTrials
+    ...mergedEnvelope(a, b)
+  }
+}
+
+/** The envelope of two tallies; a chunk that kept none sends empty arrays, so the other's is the envelope. */
+function mergedEnvelope(a: McTally, b: McTally): Pick<McTally, 'envelopeMin' | 'envelopeMax' | 'envelopeTrials'> {
+  const envelopeTrials = a.envelopeTrials + b.envelopeTrials
+  if (b.envelopeTrials === 0) return { envelopeMin: a.envelopeMin, envelopeMax: a.envelopeMax, envelopeTrials }
+  if (a.envelopeTrials === 0) return { envelopeMin: b.envelopeMin, envelopeMax: b.envelopeMax, envelopeTrials }
+  return {
+    envelopeMin: a.envelopeMin.map((v, i) => Math.min(v, b.envelopeMin[i]!)),
+    envelopeMax: a.envelopeMax.map((v, i) => Math.max(v, b.envelopeMax[i]!)),
+    envelopeTrials
   }
 }

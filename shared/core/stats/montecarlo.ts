@@ -10,7 +10,7 @@
  * R-2R ladders) are computed once per trial.
  *
  * The generator is filled in two calls (z[0, prefix) then the rest): the same stream, in order.
- * It is the WebAssembly build of the generator where available (stats/wasm-normals.ts), else
+ * It is the WebAssembly build of the generator where available (stats/wasm-kernels.ts), else
  * the JavaScript one: both write the same numbers.
  *
  * Reproducibility: the chunk's generator is seeded with deriveSeed(seed, chunkIndex) and chunks

@@ -73,6 +73,8 @@ export function mergeEvaluation(input: EvaluateInput, parts: readonly Evaluation
     spec: input.spec,
     process: input.process,
     options: input.options,
+    /** the smallest-area candidate that meets spec (kept under its contract name `recommendedId` too) */
+    smallestPassingId: passing[0]?.id ?? null,
     recommendedId: passing[0]?.id ?? null,
     candidates,
     cautions: cautionsFor(input)

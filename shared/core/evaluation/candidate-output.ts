@@ -82,13 +82,35 @@ type Metrics = ReturnType<typeof candidateMetrics>
  */
 const YIELD_ROUNDING = 1e-9
 
+/**
+ * Where a Monte Carlo yield stands against the target, judged on its confidence interval: 'fails'
+ * when the whole interval lies below the target, 'unsettled' when the target lies inside it (more
+ * trials would settle it), 'meets' otherwise. A fast (analytic) yield has no interval: it is
+ * judged on its value.
+ */
+export type YieldVerdict = 'meets' | 'fails' | 'unsettled'
+
+/** The verdicts of the overall and the monotonic yield (Wilson intervals of the tally's counts). */
+export function yieldVerdicts(t: McTally | null, input: EvaluateInput, m: Metrics): { yield: YieldVerdict, monotonic: YieldVerdict } {
+  const target = input.spec.yieldTarget - YIELD_ROUNDING
+  const judge = (passes: number, point: number): YieldVerdict => {
+    if (!t || t.trials <= 0) return point < target ? 'fails' : 'meets'
+    const ci = wilsonInterval(passes, t.trials, input.options.confidence)
+    return ci.high < target ? 'fails' : ci.low < target ? 'unsettled' : 'meets'
+  }
+  return {
+    yield: judge(t?.allPass ?? 0, m.yield),
+    monotonic: input.spec.monotonicRequired ? judge(t?.monoPass ?? 0, m.monotonicYield) : 'meets'
+  }
+}
+
 /** Spec items a candidate fails: area, yield, monotonic, update-rate, glitch, power, reference. */
-export function failingItems(m: Metrics, input: EvaluateInput): string[] {
+export function failingItems(m: Metrics, input: EvaluateInput, verdicts: ReturnType<typeof yieldVerdicts>): string[] {
   const s = input.spec
   const checks: [string, boolean][] = [
     ['area', m.totalAreaMm2 > s.areaBudgetMm2],
-    ['yield', m.yield < s.yieldTarget - YIELD_ROUNDING],
-    ['monotonic', s.monotonicRequired && m.monotonicYield < s.yieldTarget - YIELD_ROUNDING],
+    ['yield', verdicts.yield === 'fails'],
+    ['monotonic', verdicts.monotonic === 'fails'],
     ['update-rate', m.maxUpdateRateHz !== null && m.maxUpdateRateHz < s.updateRateHz],
     ['glitch', m.glitchWorstVs > s.glitchLimitVs],
     ['power', m.refPowerMaxW > s.powerBudgetW],
@@ -100,7 +122,9 @@ export function failingItems(m: Metrics, input: EvaluateInput): string[] {
 /** One output candidate. */
 export function buildCandidate(c: CandidateContext, a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
   const metrics = candidateMetrics(c, a, t, input)
-  const failing = failingItems(metrics, input)
+  const verdicts = yieldVerdicts(t, input, metrics)
+  const failing = failingItems(metrics, input, verdicts)
+  const unsettled = (['yield', 'monotonic'] as const).filter(k => verdicts[k] === 'unsettled')
   return {
     id: c.shape.id,
     topology: c.shape.topology,
@@ -111,6 +135,8 @@ export function buildCandidate(c: CandidateContext, a: AnalyticCandidate, t: McT
     metrics,
     meetsSpec: failing.length === 0,
     failing,
+    /** yield items whose Monte Carlo interval contains the target: neither met nor failed until more trials run */
+    unsettled: [...unsettled],
     linearity: linearitySection(a, t, input),
     glitch: { ...a.glitch },
     reference: { ...a.reference, irefA: a.series.irefA, rinOhm: a.series.rinOhm },

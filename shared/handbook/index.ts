@@ -4,6 +4,7 @@
  * here (tests/unit/shared/handbook.spec.ts).
  */
 import { BASICS } from './basics'
+import { SAMPLED_SIZING, SWITCH_DESIGN } from './design'
 import { DYNAMICS } from './dynamics'
 import { MATCHING } from './matching'
 import type { HandbookSection } from './types'
@@ -11,7 +12,7 @@ import type { HandbookSection } from './types'
 export type { HandbookLabel, HandbookSection } from './types'
 
 /** Every section in reading order. */
-export const HANDBOOK: readonly HandbookSection[] = [...BASICS, ...MATCHING, ...DYNAMICS]
+export const HANDBOOK: readonly HandbookSection[] = [...BASICS, ...MATCHING, ...SAMPLED_SIZING, ...DYNAMICS, ...SWITCH_DESIGN]
 
 /** The page's anchor of a section number ("4.3" → "section-4-3"). */
 export function handbookAnchor(id: string): string {

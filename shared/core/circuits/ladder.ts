@@ -19,7 +19,22 @@ export function buildR2r(
   const legsOhm = d.twoRs(bits)
   const seriesOhm = d.elements(bits - 1, 1)
   const terminationOhm = d.twoR()
-  return { topology, bits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0, legsOhm, seriesOhm, terminationOhm }
+  const base = { topology, bits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0, legsOhm, seriesOhm, terminationOhm }
+  return o.design ? { ...base, ...designed(base, o) } : base
+}
+
+/** The design's trims and switches on drawn ladder elements (values relative to R in `o.design`). */
+function designed(c: { legsOhm: number[], seriesOhm: number[], terminationOhm: number }, o: BuildOptions) {
+  const v = o.design!
+  const r = o.unitOhm
+  return {
+    switchOhm: 0,
+    legsOhm: c.legsOhm.map((x, i) => x + (v.legs[i]! - 2) * r),
+    seriesOhm: c.seriesOhm.map((x, i) => x + (v.series[i]! - 1) * r),
+    terminationOhm: c.terminationOhm + (v.termination - 2) * r,
+    legSwitchOhm: Array.from(v.legSwitch, x => x * r),
+    terminationSwitchOhm: v.terminationSwitch * r
+  }
 }
 
 /**
@@ -34,8 +49,18 @@ export function buildSegmented(bits: number, unaryBits: number, o: BuildOptions)
   const legsOhm = d.twoRs(l)
   const seriesOhm = d.elements(l - 1, 1)
   const terminationOhm = d.twoR()
-  return {
+  const base: SegmentedInput = {
     topology: 'segmented', bits, unaryBits, vrefV: o.vrefV, switchOhm: o.switchOhm ?? 0,
     unaryLegsOhm, jointOhm, legsOhm, seriesOhm, terminationOhm
+  }
+  if (!o.design) return base
+  const v = o.design
+  const r = o.unitOhm
+  return {
+    ...base,
+    ...designed(base, o),
+    unaryLegsOhm: unaryLegsOhm.map(x => x + (v.unary - 2) * r),
+    jointOhm: jointOhm + (v.joint - 1) * r,
+    unaryLegSwitchOhm: unaryLegsOhm.map(() => v.unarySwitch * r)
   }
 }

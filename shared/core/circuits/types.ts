@@ -10,6 +10,7 @@
  * in the order of the solve input's arrays, MSB first, the two units of a 2R element one after
  * the other.
  */
+import type { LadderDesignValues } from '../models/switch-design'
 import type { NormalSource } from '../stats/rng'
 
 export type StringDecode = 'direct' | 'tree'
@@ -41,4 +42,10 @@ export interface BuildOptions {
   bufferOffsetV?: [number, number]
   /** buffered two-stage string: σ of each buffer offset (V), drawn after all resistors */
   sigmaOffsetV?: number
+  /**
+   * ladders and segmented: the switch design's element values relative to R (switch-design.ts);
+   * resistors are drawn as before and trimmed by the design (2R − r, R + r/2), and each leg gets
+   * its own switch (`legSwitchOhm`, `unaryLegSwitchOhm`, `terminationSwitchOhm`) instead of `switchOhm`
+   */
+  design?: LadderDesignValues | null
 }

@@ -9,6 +9,7 @@
  * to MAX_TRIALS / 2^(bits − 12), so that a request's Monte Carlo work stays bounded.
  */
 import { z } from 'zod'
+import { SWITCH_HANDLINGS } from '../models/switch-design'
 import { flag, intInRange, oneOf, says, strictKeys } from './fields'
 
 export { evaluateOutputSchema } from './evaluate-output'
@@ -76,7 +77,11 @@ export const evaluateProcessSchema = strict({
   latchDelayS: between(0, 1e-3, 's').default(0),
   bufferOffsetSigmaV: between(0, 1, 'V').default(0),
   tapChargeFraction: between(0, 1, 'fraction').default(1),
-  legChargeFraction: between(0, 1, 'fraction').default(0.1)
+  legChargeFraction: between(0, 1, 'fraction').default(0.1),
+  /** spread of the switches' on-resistance relative to the resistors over process and temperature (±%) */
+  switchSpreadPct: between(0, 100, '%').default(0),
+  /** σ of one process switch's on-resistance about its design value (%, falls as 1/√width) */
+  switchMismatchPct: between(0, 100, '%').default(0)
 })
 
 const topologyList = z.array(oneOf(EVALUATE_TOPOLOGIES), says(`must be a non-empty list of ${EVALUATE_TOPOLOGIES.join(', ')}`))
@@ -90,14 +95,20 @@ export const evaluateOptionsSchema = strict({
   seed: intInRange(0, 2 ** 32 - 1).default(1),
   inlDefinition: oneOf(['endpoint', 'best-fit'] as const).default('endpoint'),
   envelopePoints: intInRange(16, 1024).default(256),
-  confidence: between(0.5, 0.9999, 'fraction').default(0.95)
+  confidence: between(0.5, 0.9999, 'fraction').default(0.95),
+  /** how ladder and segmented switches are handled: chosen by the engine ('auto') or fixed */
+  switchHandling: oneOf(['auto', ...SWITCH_HANDLINGS] as const).default('auto'),
+  /** width of the widest switch as a multiple of the process's switch: chosen ('auto') or fixed */
+  switchScale: z.union([z.literal('auto'), z.literal(1), z.literal(2), z.literal(4), z.literal(8), z.literal(16), z.literal(32), z.literal(64)],
+    says('must be "auto" or one of 1, 2, 4, 8, 16, 32, 64')).default('auto')
 })
 
 export const evaluateInputSchema = strict({
   spec: evaluateSpecSchema,
   process: evaluateProcessSchema,
   options: evaluateOptionsSchema.default({
-    topologies: [...EVALUATE_TOPOLOGIES], trials: 2000, seed: 1, inlDefinition: 'endpoint', envelopePoints: 256, confidence: 0.95
+    topologies: [...EVALUATE_TOPOLOGIES], trials: 2000, seed: 1, inlDefinition: 'endpoint', envelopePoints: 256, confidence: 0.95,
+    switchHandling: 'auto', switchScale: 'auto'
   })
 }).superRefine((v, ctx) => {
   const bits = v.spec.bits

@@ -8,7 +8,7 @@
  * control block writes and their columns; the candidate form also returns the circuit it built.
  */
 import { z } from 'zod'
-import { evaluateProcessSchema, evaluateSpecSchema } from './evaluate'
+import { evaluateOptionsSchema, evaluateProcessSchema, evaluateSpecSchema } from './evaluate'
 import { flag, intInRange, oneOf, says, strictKeys } from './fields'
 import { MAX_BITS, solveInputSchema, TOPOLOGIES } from './solve'
 
@@ -55,7 +55,9 @@ export const netlistSpecInputSchema = strict({
   process: evaluateProcessSchema,
   candidate: netlistCandidateSchema,
   sample: sampleSchema.default(null),
-  note: note.optional()
+  note: note.optional(),
+  /** the study's evaluate options (INL definition and switch design decide the sizing); evaluate's defaults when absent */
+  options: evaluateOptionsSchema.optional()
 }).superRefine((v, ctx) => {
   const c = v.candidate
   for (const [field, topology] of Object.entries(ONLY)) {
@@ -93,6 +95,8 @@ export const netlistOutputSchema = z.object({
   /** candidate form only: the circuit that was built (a solve input) and how it was sized */
   circuit: solveInputSchema.optional(),
   sizing: z.object({ unitOhm: z.number(), sigmaUnit: z.number() }).optional(),
+  /** candidate form, ladders and segmented: the switch design the circuit carries */
+  design: z.object({ handling: z.string(), scale: z.number(), corner: z.number() }).nullable().optional(),
   sample: z.object({ seed: z.number().int(), index: z.number().int() }).nullable().optional()
 })
 

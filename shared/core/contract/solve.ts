@@ -49,13 +49,18 @@ const ladderShape = {
   ...common,
   legsOhm: ohmsArray(),
   seriesOhm: ohmsArray(),
-  terminationOhm: ohms()
+  terminationOhm: ohms(),
+  /** per-leg switch on-resistance (ohms), MSB first; replaces `switchOhm` for the ladder legs */
+  legSwitchOhm: z.array(inRange(0, MAX_OHM, 'ohms'), says('must be a list of on-resistances in ohms')).optional(),
+  /** an always-on dummy switch in series with the termination (ohms) */
+  terminationSwitchOhm: inRange(0, MAX_OHM, 'ohms').optional()
 }
 
-function checkLadder(v: { bits: number, legsOhm: number[], seriesOhm: number[] }, ctx: Ctx): void {
+function checkLadder(v: { bits: number, legsOhm: number[], seriesOhm: number[], legSwitchOhm?: number[] }, ctx: Ctx): void {
   if (!bitsOk(v)) return
   expectLength(ctx, 'legsOhm', v.legsOhm, v.bits, 'one leg per bit')
   expectLength(ctx, 'seriesOhm', v.seriesOhm, v.bits - 1, 'bits − 1 series resistors')
+  if (v.legSwitchOhm) expectLength(ctx, 'legSwitchOhm', v.legSwitchOhm, v.bits, 'one switch per leg')
 }
 
 export const r2rVoltageInputSchema = strict({ topology: z.literal('r2r-voltage'), ...ladderShape })
@@ -78,7 +83,9 @@ export const segmentedInputSchema = strict({
   ...ladderShape,
   unaryBits: intInRange(1, MAX_BITS - 1),
   unaryLegsOhm: ohmsArray(),
-  jointOhm: ohms()
+  jointOhm: ohms(),
+  /** per-unary-leg switch on-resistance (ohms); replaces `switchOhm` for the unary legs */
+  unaryLegSwitchOhm: z.array(inRange(0, MAX_OHM, 'ohms'), says('must be a list of on-resistances in ohms')).optional()
 }).superRefine((v, ctx) => {
   if (!bitsOk(v) || !Number.isInteger(v.unaryBits)) return
   if (v.unaryBits > v.bits - 1) {
@@ -90,6 +97,8 @@ export const segmentedInputSchema = strict({
   expectLength(ctx, 'unaryLegsOhm', v.unaryLegsOhm, 2 ** v.unaryBits - 1, '2^unaryBits − 1 unary legs')
   expectLength(ctx, 'legsOhm', v.legsOhm, l, 'one leg per ladder bit (bits − unaryBits)')
   expectLength(ctx, 'seriesOhm', v.seriesOhm, l - 1, 'bits − unaryBits − 1 series resistors')
+  if (v.legSwitchOhm) expectLength(ctx, 'legSwitchOhm', v.legSwitchOhm, l, 'one switch per ladder leg')
+  if (v.unaryLegSwitchOhm) expectLength(ctx, 'unaryLegSwitchOhm', v.unaryLegSwitchOhm, 2 ** v.unaryBits - 1, 'one switch per unary leg')
 })
 
 export const twoStageInputSchema = strict({

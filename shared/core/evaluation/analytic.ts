@@ -14,6 +14,7 @@ import { elementCounts } from '../models/counts'
 import type { ElementCounts } from '../models/counts'
 import { dynamics, effectiveRoutMaxOhm } from '../models/dynamics'
 import { analyticDnlYield, analyticInlYield, analyticMonotonicYield, analyticSigmas } from '../models/matching'
+import { switchWidthUnits } from '../models/switch-design'
 import { ktcNoiseVrms, quantisationNoiseVrms, rcNoiseVrms } from '../models/noise'
 import type { ReferenceSummary } from '../models/reference'
 import { referenceSummary } from '../models/reference'
@@ -35,7 +36,7 @@ export interface AnalyticCandidate {
   id: string
   counts: ElementCounts
   area: { resistorAreaMm2: number, switchAreaMm2: number, decoderAreaMm2: number, totalAreaMm2: number, areaBudgetShare: number }
-  analytic: { inlSigmaLsb: number, dnlSigmaLsb: number, inlYield: number, dnlYield: number, monotonicYield: number }
+  analytic: { inlSigmaLsb: number, dnlSigmaLsb: number, inlYield: number, dnlYield: number, monotonicYield: number, yield: number }
   systematic: { inlLsb: number, dnlLsb: number, loadedInlLsb: number | null }
   reference: ReferenceSummary
   output: { routMinOhm: number, routMaxOhm: number, routEffMaxOhm: number, tauS: number, settlingS: number, maxUpdateRateHz: number | null }
@@ -52,23 +53,40 @@ export interface AnalyticCandidate {
 function areaOf(c: CandidateContext, counts: ElementCounts, input: EvaluateInput, trace?: Trace): AnalyticCandidate['area'] {
   const p = input.process
   const resistorAreaMm2 = F.resistorArea.use({ n_u: counts.unitResistorCount, A_unit: c.sizing.unitAreaUm2, k_ovh: p.layoutOverhead }, trace, 'resistorAreaMm2', { n_u: 'unitResistorCount', A_unit: 'unitAreaUm2' })
-  const switchAreaMm2 = F.switchArea.use({ n_sw: counts.switchCount, A_sw: p.switchAreaUm2 }, trace, 'switchAreaMm2', { n_sw: 'switchCount' })
+  // a designed ladder counts its switches in process-switch widths (wider switches, a dummy)
+  const widths = c.design ? switchWidthUnits(c.shape, c.design.values, c.design.chosen.handling) : counts.switchCount
+  if (trace && c.design) {
+    trace.switchWidthUnits = { kind: 'procedure', procedure: 'switch-design', inputs: { handling: c.design.chosen.handling, scale: c.design.chosen.scale, switchCount: counts.switchCount }, result: widths }
+  }
+  const switchAreaMm2 = F.switchArea.use({ n_sw: widths, A_sw: p.switchAreaUm2 }, trace, 'switchAreaMm2', { n_sw: c.design ? 'switchWidthUnits' : 'switchCount' })
   const decoderAreaMm2 = F.decoderArea.use({ n_g: counts.decoderGateCount, A_g: p.gateAreaUm2 }, trace, 'decoderAreaMm2', { n_g: 'decoderGateCount' })
   const totalAreaMm2 = F.totalArea.use({ A_res: resistorAreaMm2, A_sw: switchAreaMm2, A_dec: decoderAreaMm2 }, trace, 'totalAreaMm2', { A_res: 'resistorAreaMm2', A_sw: 'switchAreaMm2', A_dec: 'decoderAreaMm2' })
   const areaBudgetShare = F.areaShare.use({ A_total: totalAreaMm2, A_budget: input.spec.areaBudgetMm2 }, trace, 'areaBudgetShare', { A_total: 'totalAreaMm2' })
   return { resistorAreaMm2, switchAreaMm2, decoderAreaMm2, totalAreaMm2, areaBudgetShare }
 }
 
+/**
+ * σ of the worst INL and DNL by the closed forms (for reading), and the fast yields the context
+ * found: on the sizing sample (procedure entries) or by the closed forms (formula entries).
+ */
 function analyticStats(c: CandidateContext, input: EvaluateInput, trace?: Trace): AnalyticCandidate['analytic'] {
-  const { shape, sizing } = c
+  const { shape, sizing, fast } = c
   const twoR = input.process.twoRConstruction
   const s = input.spec
-  return {
-    ...analyticSigmas(shape, twoR, sizing.sigmaUnit, trace),
-    inlYield: analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb, trace),
-    dnlYield: analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb, trace),
-    monotonicYield: analyticMonotonicYield(shape, twoR, sizing.sigmaUnit, trace)
+  if (trace && fast.model === 'closed-form') {
+    analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb, trace)
+    analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb, trace)
+    analyticMonotonicYield(shape, twoR, sizing.sigmaUnit, trace)
   }
+  if (trace) {
+    const entry = (key: string, criterion: string, result: number) => {
+      trace[key] = { kind: 'procedure', procedure: fast.model === 'sampled' ? 'sampled-yield' : 'closed-form-yield', inputs: { trials: fast.trials, criterion, sigmaUnit: sizing.sigmaUnit }, result }
+    }
+    entry('inlYieldAnalytic', 'INL', fast.yields.inlYield)
+    entry('dnlYieldAnalytic', 'DNL', fast.yields.dnlYield)
+    entry('monotonicYieldAnalytic', 'monotonic', fast.yields.monotonicYield)
+  }
+  return { ...analyticSigmas(shape, twoR, sizing.sigmaUnit, trace), ...fast.yields }
 }
 
 /** Procedure entries of the nodal-solve quantities (explain mode only). */
@@ -124,13 +142,19 @@ function finiteRange(a: Float64Array): { min: number, max: number } {
   return { min, max }
 }
 
+/** The process as the chosen switches see it: a switch w times wider injects w times the charge. */
+function switchedProcess(c: CandidateContext, process: EvaluateInput['process']): EvaluateInput['process'] {
+  const w = c.design?.chosen.scale ?? 1
+  return w === 1 ? process : { ...process, switchChargeC: process.switchChargeC * w }
+}
+
 /** The analytic part of one candidate; a `trace` collects how each metric was computed. */
 export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trace?: Trace): AnalyticCandidate {
   const { spec, process, options } = input
   const counts = elementCounts(c.shape, process.twoRConstruction, trace)
   const circuit = buildCircuit(circuitShapeOf(c.shape), {
     unitOhm: c.sizing.unitOhm, vrefV: spec.vrefV, switchOhm: process.switchOhm, twoR: process.twoRConstruction,
-    ...twoStageUnits(c.shape, c.sizing.unitOhm)
+    ...twoStageUnits(c.shape, c.sizing.unitOhm), design: c.design?.values ?? null
   })
   const sol = solveCircuitArrays(circuit)
   const nominal = linearityFromLevels(sol.value, options.inlDefinition, newLinearityResult())
@@ -140,7 +164,8 @@ export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trac
   const routRange = finiteRange(sol.routOhm)
   const vLsb = spec.vrefV / 2 ** spec.bits
   const budget = spec.refInlBudgetLsb ?? 0.1 * spec.inlTargetLsb
-  const glitch = summariseGlitch(c.shape, vLsb, rout, process, options.envelopePoints)
+  const glitchProcess = switchedProcess(c, process)
+  const glitch = summariseGlitch(c.shape, vLsb, rout, glitchProcess, options.envelopePoints)
   const result: AnalyticCandidate = {
     id: c.shape.id,
     counts,
@@ -173,7 +198,7 @@ export function analyseCandidate(c: CandidateContext, input: EvaluateInput, trac
   }
   if (trace) {
     traceSolved(result, input, trace)
-    traceGlitch(c.shape, vLsb, rout, process, glitch, trace)
+    traceGlitch(c.shape, vLsb, rout, glitchProcess, glitch, trace)
   }
   return result
 }

@@ -3,7 +3,6 @@
  * the detail sections and the list of spec items it fails.
  */
 import type { EvaluateInput } from '../contract/evaluate'
-import { OUTPUT_FORMULAS } from '../explain/registry'
 import type { McTally } from '../stats/accumulator'
 import { wilsonInterval } from '../stats/interval'
 import type { AnalyticCandidate } from './analytic'
@@ -20,8 +19,7 @@ function yields(a: AnalyticCandidate, t: McTally | null, input: EvaluateInput) {
     return { inlYield: t.inlPass / t.trials, dnlYield: t.dnlPass / t.trials, monotonicYield: t.monoPass / t.trials, yield: all.yield, yieldLow: all.low, yieldHigh: all.high, yieldSource: 'monte-carlo' }
   }
   const { inlYield, dnlYield, monotonicYield } = a.analytic
-  const all = OUTPUT_FORMULAS.yieldProduct.compute({ Y_INL: inlYield, Y_DNL: dnlYield, Y_mono: input.spec.monotonicRequired ? monotonicYield : 1 })
-  return { inlYield, dnlYield, monotonicYield, yield: all, yieldLow: null, yieldHigh: null, yieldSource: 'analytic' }
+  return { inlYield, dnlYield, monotonicYield, yield: a.analytic.yield, yieldLow: null, yieldHigh: null, yieldSource: 'analytic' }
 }
 
 /** The metrics object of one candidate. */
@@ -46,6 +44,14 @@ export function candidateMetrics(c: CandidateContext, a: AnalyticCandidate, t: M
     inlYieldAnalytic: a.analytic.inlYield,
     dnlYieldAnalytic: a.analytic.dnlYield,
     monotonicYieldAnalytic: a.analytic.monotonicYield,
+    /** every criterion together, on the same footing as the three above */
+    yieldAnalytic: a.analytic.yield,
+    /** how the fast yields and the sizing were found: 'sampled' (the sizing sample) or 'closed-form' (an estimate) */
+    fastYieldModel: c.fast.model,
+    fastYieldTrials: c.fast.trials,
+    sizingFeasible: c.fast.feasible,
+    switchHandling: c.design?.chosen.handling ?? null,
+    switchScale: c.design?.chosen.scale ?? null,
     systematicInlLsb: a.systematic.inlLsb,
     systematicDnlLsb: a.systematic.dnlLsb,
     loadedInlLsb: a.systematic.loadedInlLsb,
@@ -138,6 +144,8 @@ export function buildCandidate(c: CandidateContext, a: AnalyticCandidate, t: McT
     /** yield items whose Monte Carlo interval contains the target: neither met nor failed until more trials run */
     unsettled: [...unsettled],
     linearity: linearitySection(a, t, input),
+    /** the switch design the engine chose (or was given) and the best of each other handling */
+    design: c.design ? { choice: c.design.choice, ...c.design.chosen, corner: c.design.corner, alternatives: c.design.alternatives } : null,
     glitch: { ...a.glitch },
     reference: { ...a.reference, irefA: a.series.irefA, rinOhm: a.series.rinOhm },
     output: { ...a.output, routOhm: a.series.routOhm, noise: a.noise }

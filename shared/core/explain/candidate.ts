@@ -5,9 +5,9 @@
  */
 import type { EvaluateInput } from '../contract/evaluate'
 import { analyseCandidate } from '../evaluation/analytic'
+import type { CandidateContext } from '../evaluation/context'
 import { candidateContexts } from '../evaluation/context'
 import { sizeUnit } from '../models/sizing'
-import { OUTPUT_FORMULAS } from './registry'
 import type { MonteCarloFacts, Trace } from './types'
 
 /** Per-yield Monte Carlo estimates as the evaluate output carries them (linearity.monteCarlo). */
@@ -44,15 +44,28 @@ function traceYields(input: EvaluateInput, mc: ReturnType<typeof monteCarloOf>, 
     trace.yieldSource = { kind: 'procedure', procedure: 'monte-carlo-yield', inputs: { trials: mc.all.trials }, result: 'monte-carlo' }
     return
   }
-  const y = (key: string) => trace[key]!.result as number
   trace.inlYield = trace.inlYieldAnalytic!
   trace.dnlYield = trace.dnlYieldAnalytic!
   trace.monotonicYield = trace.monotonicYieldAnalytic!
-  OUTPUT_FORMULAS.yieldProduct.use({ Y_INL: y('inlYield'), Y_DNL: y('dnlYield'), Y_mono: input.spec.monotonicRequired ? y('monotonicYield') : 1 }, trace, 'yield',
-    { Y_INL: 'inlYieldAnalytic', Y_DNL: 'dnlYieldAnalytic', ...(input.spec.monotonicRequired ? { Y_mono: 'monotonicYieldAnalytic' } : {}) })
+  // every criterion together on the sizing sample (set by traceFast)
+  trace.yield = trace.yieldAnalytic!
   trace.yieldLow = { kind: 'procedure', procedure: 'not-applicable', inputs: { trials: 0 }, result: null }
   trace.yieldHigh = { kind: 'procedure', procedure: 'not-applicable', inputs: { trials: 0 }, result: null }
   trace.yieldSource = { kind: 'procedure', procedure: 'analytic-yield', inputs: { trials: 0 }, result: 'analytic' }
+}
+
+/** Entries of the fast-yield and switch-design facts a candidate reports. */
+function traceFast(c: CandidateContext, trace: Trace): void {
+  const procedure = c.fast.model === 'sampled' ? 'sampled-yield' : 'closed-form-yield'
+  const inputs = { trials: c.fast.trials, sigmaUnit: c.sizing.sigmaUnit }
+  trace.yieldAnalytic = { kind: 'procedure', procedure, inputs: { ...inputs, criterion: 'all' }, result: c.fast.yields.yield }
+  trace.fastYieldModel = { kind: 'procedure', procedure, inputs, result: c.fast.model }
+  trace.fastYieldTrials = { kind: 'procedure', procedure, inputs, result: c.fast.trials }
+  trace.sizingFeasible = { kind: 'procedure', procedure: c.fast.model === 'sampled' ? 'sampled-sizing' : 'closed-form-yield', inputs, result: c.fast.feasible }
+  const d = c.design?.chosen
+  const design = { kind: 'procedure' as const, procedure: d ? 'switch-design' : 'not-applicable', inputs: { choice: c.design?.choice ?? null } }
+  trace.switchHandling = { ...design, result: d?.handling ?? null }
+  trace.switchScale = { ...design, result: d?.scale ?? null }
 }
 
 /**
@@ -67,11 +80,12 @@ export function explainCandidate(input: EvaluateInput, candidate: { id: string }
     throw new Error(`explainCandidate: no candidate ${candidate.id} in this input`)
   }
   const trace: Trace = {}
-  sizeUnit(c.shape, input.spec, input.process, trace)
+  sizeUnit(c.shape, c.sizingSpec, input.process, trace, c.sampled ?? undefined)
   if (!trace.unitOhmChoice) {
     trace.unitOhmChoice = { kind: 'procedure', procedure: 'given', inputs: { unitOhm: c.sizing.unitOhm }, result: c.sizing.unitOhmChoice }
   }
   analyseCandidate(c, input, trace)
+  traceFast(c, trace)
   traceYields(input, monteCarloOf(candidate), trace)
   return trace
 }

@@ -16,6 +16,7 @@ import { stringTrial } from '../stats/string-mc'
 import { createTwoStageScratch, twoStageTrial } from '../stats/two-stage'
 import { kernelsFor } from '../stats/wasm-kernels'
 import type { CandidateShape, TwoRConstruction } from './shapes'
+import type { LadderDesignValues } from './switch-design'
 import { coarseToFineRatio, lowBits } from './shapes'
 
 /** One candidate's trial: reads z[0 … normals), writes its INL/DNL extremes (and envelope). */
@@ -28,13 +29,78 @@ export interface TrialSampler {
   run: (z: Float64Array, out: LinearityResult, env?: Envelope, zs?: NormalsSummary) => void
 }
 
-/** Sampling parameters of one candidate. `switchRatio` = R_on / R_unit; `offsetSigma` = σ_os / V_REF. */
+/**
+ * Sampling parameters of one candidate. `switchRatio` = R_on / R_unit (strings and two-stage
+ * strings: the tap and selection switches); `offsetSigma` = σ_os / V_REF; `design` the ladder's or
+ * segmented DAC's element values with its switches at the analysed corner (switch-design.ts);
+ * `switchSigma` the relative σ of one process switch's R_on (falls as 1/√width).
+ */
 export interface SamplerParams {
   sigmaUnit: number
   switchRatio: number
   twoR: TwoRConstruction
   offsetSigma: number
   def: InlDefinition
+  design?: LadderDesignValues | null
+  switchSigma?: number
+}
+
+/** Nominal total and σ (relative to R) of each leg: resistor plus switch, errors in quadrature. */
+interface LegStats { nominal: Float64Array, sigma: Float64Array }
+
+function legStats(res: ArrayLike<number>, sw: ArrayLike<number>, widths: ArrayLike<number>, resSigma: number, swSigma: number): LegStats {
+  const n = res.length
+  const nominal = new Float64Array(n)
+  const sigma = new Float64Array(n)
+  for (let i = 0; i < n; i++) {
+    const s = sw[i]! * swSigma / Math.sqrt(widths[i]!)
+    nominal[i] = res[i]! + sw[i]!
+    sigma[i] = Math.sqrt(resSigma * resSigma + s * s)
+  }
+  return { nominal, sigma }
+}
+
+/** The ladder section's sampled values: legs, series arms and termination (relative to R). */
+interface LadderParts { legs: LegStats, series: Float64Array, termNominal: number, termSigma: number }
+
+function ladderParts(v: LadderDesignValues, s2: number, p: SamplerParams): LadderParts {
+  const swSigma = p.switchSigma ?? 0
+  const legs = legStats(v.legs, v.legSwitch, v.legWidths, 2 * s2, swSigma)
+  const ts = v.terminationSwitch * swSigma / Math.sqrt(v.unaryWidth)
+  return { legs, series: v.series, termNominal: v.termination + v.terminationSwitch, termSigma: Math.sqrt(4 * s2 * s2 + ts * ts) }
+}
+
+/** Draws the ladder section from z[from …]: legs, then series arms, then the termination. */
+function drawLadder(x: LadderParts, sigmaUnit: number, z: Float64Array, from: number, legs: Float64Array, series: Float64Array): number {
+  const n = legs.length
+  for (let i = 0; i < n; i++) legs[i] = x.legs.nominal[i]! + x.legs.sigma[i]! * z[from + i]!
+  for (let i = 0; i < n - 1; i++) series[i] = x.series[i]! * (1 + sigmaUnit * z[from + n + i]!)
+  return x.termNominal + x.termSigma * z[from + 2 * n - 1]!
+}
+
+/** A short text naming the design values (sampler keys: equal keys must give equal trials). */
+function designKey(v: LadderDesignValues | null | undefined, p: SamplerParams): string {
+  if (!v) return `sw${p.switchRatio}`
+  return [v.legs, v.legSwitch, v.series, v.legWidths].map(a => Array.from(a).join(',')).join('|')
+    + `|${v.termination},${v.terminationSwitch},${v.unary},${v.unarySwitch},${v.joint},${v.unaryWidth},${p.switchSigma ?? 0}`
+}
+
+/** The design values a ladder or segmented sampler needs: the given ones, else plain legs with `switchRatio`. */
+function designOf(bits: number, unaryBits: number, p: SamplerParams): LadderDesignValues {
+  if (p.design) return p.design
+  const l = bits - unaryBits
+  return {
+    legs: new Float64Array(l).fill(2),
+    legSwitch: new Float64Array(l).fill(p.switchRatio),
+    series: new Float64Array(Math.max(0, l - 1)).fill(1),
+    termination: 2,
+    terminationSwitch: 0,
+    unary: 2,
+    unarySwitch: p.switchRatio,
+    joint: 1,
+    legWidths: new Float64Array(l).fill(1),
+    unaryWidth: 1
+  }
 }
 
 function fillScaled(dst: Float64Array, z: Float64Array, from: number, nominal: number, sigma: number): void {
@@ -45,19 +111,19 @@ function fillScaled(dst: Float64Array, z: Float64Array, from: number, nominal: n
 
 function ladderSampler(bits: number, p: SamplerParams): TrialSampler {
   const s2 = p.twoR === 'two-units' ? p.sigmaUnit * Math.SQRT1_2 : p.sigmaUnit
+  const v = designOf(bits, 0, p)
+  const parts = ladderParts(v, s2, p)
   const legs = new Float64Array(bits)
   const series = new Float64Array(bits - 1)
   const w = new Float64Array(bits)
   const d = new Float64Array(bits)
   const scratch = new Float64Array(256)
   return {
-    key: `ladder:${bits}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
+    key: `ladder:${bits}:${p.sigmaUnit}:${p.twoR}:${p.def}:${designKey(p.design, p)}`,
     normals: 2 * bits,
     run(z, out, env) {
-      fillScaled(legs, z, 0, 2, s2)
-      fillScaled(series, z, bits, 1, p.sigmaUnit)
-      const term = 2 * (1 + s2 * z[2 * bits - 1]!)
-      ladderWeights(legs, series, term, p.switchRatio, w)
+      const term = drawLadder(parts, p.sigmaUnit, z, 0, legs, series)
+      ladderWeights(legs, series, term, 0, w)
       linearityFromBinaryWeights(w, 0, p.def, out)
       if (env) {
         const { a, s } = binaryLine(w, 0, p.def)
@@ -122,17 +188,22 @@ function sampleLegs(g: Float64Array, z: Float64Array, b: number, sw: number, ext
  */
 function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler {
   const s2 = p.twoR === 'two-units' ? p.sigmaUnit * Math.SQRT1_2 : p.sigmaUnit
+  const v = designOf(m + l, m, p)
+  const parts = ladderParts(v, s2, p)
+  const us = v.unarySwitch * (p.switchSigma ?? 0) / Math.sqrt(v.unaryWidth)
+  // a unary leg is 2 + b·z + sw (relative to R): resistor and switch errors in quadrature
+  const b = Math.sqrt(4 * s2 * s2 + us * us)
+  const sw = v.unary + v.unarySwitch - 2
   const legCount = (1 << m) - 1
   const legs = new Float64Array(l)
   const series = new Float64Array(Math.max(0, l - 1))
   const binary = new Float64Array(l)
   const scratch = createSegmentedScratch(m, 256)
   const at = legCount
-  const sw = p.switchRatio
   let g = legBuffer(legCount)
   const extremes = { hi: 0, lo: 0 }
   return {
-    key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.switchRatio}:${p.twoR}:${p.def}`,
+    key: `segmented:${m}:${l}:${p.sigmaUnit}:${p.twoR}:${p.def}:${designKey(p.design, p)}`,
     normals: at + 2 * l + 1,
     run(z, out, env) {
       const k = kernelsFor(z)
@@ -140,20 +211,18 @@ function segmentedSampler(m: number, l: number, p: SamplerParams): TrialSampler 
       if (k && at <= k.legs.length) {
         // The same pass in WebAssembly, into its leg buffer (which its unary scan then reads).
         g = k.legs.subarray(0, at)
-        sumG = k.sampleLegs(at, 2 * s2, sw)
+        sumG = k.sampleLegs(at, b, sw)
         extremes.hi = k.legHiIndex()
         extremes.lo = k.legLoIndex()
       } else {
         g = legBuffer(at, g)
-        sumG = sampleLegs(g, z, 2 * s2, sw, extremes)
+        sumG = sampleLegs(g, z, b, sw, extremes)
       }
-      const joint = 1 + p.sigmaUnit * z[at]!
-      fillScaled(legs, z, at + 1, 2, s2)
-      fillScaled(series, z, at + 1 + l, 1, p.sigmaUnit)
-      const term = 2 * (1 + s2 * z[at + 2 * l]!)
-      const toLadder = joint + ladderRoutOhm(legs, series, term, sw)
+      const joint = v.joint * (1 + p.sigmaUnit * z[at]!)
+      const term = drawLadder(parts, p.sigmaUnit, z, at + 1, legs, series)
+      const toLadder = joint + ladderRoutOhm(legs, series, term, 0)
       const xOut = 1 / (sumG + 1 / toLadder)
-      ladderWeights(legs, series, term, sw, binary)
+      ladderWeights(legs, series, term, 0, binary)
       for (let i = 0; i < l; i++) {
         binary[i] = binary[i]! * (xOut / toLadder)
       }
@@ -170,9 +239,10 @@ function twoStageSampler(s: CandidateShape, p: SamplerParams): TrialSampler {
   const scratch = createTwoStageScratch(m, l)
   const ratio = coarseToFineRatio(s)
   const buffered = s.buffered === true
-  const sample = { coarse, fine, buffered, offsetLo: 0, offsetHi: 0 }
+  // the selection switches load the fine string only when it hangs on the coarse string
+  const sample = { coarse, fine, buffered, offsetLo: 0, offsetHi: 0, switchRel: buffered ? 0 : p.switchRatio }
   return {
-    key: `two-stage:${m}:${l}:${buffered}:${p.sigmaUnit}:${p.offsetSigma}:${p.def}`,
+    key: `two-stage:${m}:${l}:${buffered}:${p.sigmaUnit}:${p.offsetSigma}:${p.def}:${sample.switchRel}`,
     normals: coarse.length + fine.length + 2,
     run(z, out, env) {
       fillScaled(coarse, z, 0, ratio, p.sigmaUnit)

@@ -128,15 +128,42 @@ function pickUnitOhm(rPower: number, rSettle: number, rArea: number): { unitOhm:
   return { unitOhm: rArea, choice: 'area' }
 }
 
-/**
- * Sizes the unit resistor of a candidate: σ_u required by INL and DNL at the yield target, the
- * matching area, the value-driven minimum, and the drawn W × L (the larger area wins).
- */
-export function sizeUnit(s: CandidateShape, spec: SizingSpec, process: SizingProcess, trace?: Trace): UnitSizing {
+/** σ_u found on the sizing sample (evaluation/sampled-sizing.ts) instead of the closed forms. */
+export interface SampledSigmas {
+  trials: number
+  sigmaForInl: number
+  sigmaForDnl: number
+  /** every criterion together (INL, DNL and, when required, monotonicity) */
+  sigmaForAll: number
+}
+
+function sampledSigmas(given: SampledSigmas, spec: SizingSpec, trace?: Trace): { sInl: number, sDnl: number, sigmaRequired: number } {
+  if (trace) {
+    const entry = (key: string, criterion: string, result: number) => {
+      trace[key] = { kind: 'procedure', procedure: 'sampled-sizing', inputs: { trials: given.trials, yieldTarget: spec.yieldTarget, criterion }, result }
+    }
+    entry('sigmaForInl', 'INL', given.sigmaForInl)
+    entry('sigmaForDnl', 'DNL', given.sigmaForDnl)
+    entry('sigmaUnitRequired', 'all', given.sigmaForAll)
+  }
+  return { sInl: given.sigmaForInl, sDnl: given.sigmaForDnl, sigmaRequired: given.sigmaForAll }
+}
+
+function closedFormSigmas(s: CandidateShape, spec: SizingSpec, process: SizingProcess, trace?: Trace): { sInl: number, sDnl: number, sigmaRequired: number } {
   const twoR = process.twoRConstruction
   const sInl = sigmaForInl(s, twoR, spec.inlTargetLsb, spec.yieldTarget, trace)
   const sDnl = sigmaForDnl(s, twoR, spec.dnlTargetLsb, spec.yieldTarget, trace)
   const sigmaRequired = F.sigmaRequired.use({ s_inl: sInl, s_dnl: sDnl }, trace, 'sigmaUnitRequired', { s_inl: 'sigmaForInl', s_dnl: 'sigmaForDnl' })
+  return { sInl, sDnl, sigmaRequired }
+}
+
+/**
+ * Sizes the unit resistor of a candidate: σ_u required by INL and DNL at the yield target (from
+ * the sizing sample when `given`, else the closed forms), the matching area, the value-driven
+ * minimum, and the drawn W × L (the larger area wins).
+ */
+export function sizeUnit(s: CandidateShape, spec: SizingSpec, process: SizingProcess, trace?: Trace, given?: SampledSigmas): UnitSizing {
+  const { sInl, sDnl, sigmaRequired } = given ? sampledSigmas(given, spec, trace) : closedFormSigmas(s, spec, process, trace)
   const aSingle = singleCoefficientUm(process, trace)
   const { unitOhm, choice } = chooseUnitOhm(s, spec, process, trace)
   const squares = F.squares.use({ R_unit: unitOhm, R_sq: process.sheetOhmPerSq }, trace, 'squares', { R_unit: 'unitOhm' })

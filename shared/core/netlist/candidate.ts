@@ -6,10 +6,10 @@
 import { buildCircuit } from '../circuits/index'
 import type { NetlistSpecInput } from '../contract/netlist'
 import type { SolveInput } from '../contract/solve'
-import { circuitShapeOf, twoStageUnits } from '../evaluation/context'
+import { evaluateOptionsSchema } from '../contract/evaluate'
+import { candidateContext, circuitShapeOf, twoStageUnits } from '../evaluation/context'
 import type { CandidateShape } from '../models/shapes'
 import { twoStageCoarseBits } from '../models/shapes'
-import { sizeUnit } from '../models/sizing'
 import { createNormalSource, deriveSeed } from '../stats/rng'
 
 /** The evaluation's shape of the requested candidate (defaults: direct decode, buffered, M = ⌈N/2⌉). */
@@ -35,24 +35,30 @@ export interface CandidateCircuit {
   shape: CandidateShape
   unitOhm: number
   sigmaUnit: number
+  /** ladders and segmented: the switch design the circuit carries (null otherwise) */
+  design: { handling: string, scale: number, corner: number } | null
   /** one-line description for the netlist header */
   note: string
 }
 
 /**
- * Builds the candidate's circuit. `sample: null` gives nominal values; `{ seed, index }` draws
- * one sample from the seeded stream deriveSeed(seed, index) (independent of the evaluation's
- * own Monte Carlo trials, but always the same for the same pair).
+ * Builds the candidate's circuit exactly as the evaluation designs and sizes it (same context: the
+ * switch design at its worst corner, the sampled sizing). `sample: null` gives nominal values;
+ * `{ seed, index }` draws one sample from the seeded stream deriveSeed(seed, index) (independent
+ * of the evaluation's own Monte Carlo trials, but always the same for the same pair).
  */
 export function candidateCircuit(input: NetlistSpecInput): CandidateCircuit {
   const shape = candidateShapeOf(input)
   const { spec, process, sample } = input
-  const sizing = sizeUnit(shape, spec, process)
+  const options = evaluateOptionsSchema.parse(input.options ?? {})
+  const c = candidateContext(shape, { spec, process, options })
+  const sizing = c.sizing
   const circuit = buildCircuit(circuitShapeOf(shape), {
     unitOhm: sizing.unitOhm,
     vrefV: spec.vrefV,
     switchOhm: process.switchOhm,
     twoR: process.twoRConstruction,
+    design: c.design?.values ?? null,
     ...twoStageUnits(shape, sizing.unitOhm),
     ...(sample === null
       ? {}
@@ -63,6 +69,8 @@ export function candidateCircuit(input: NetlistSpecInput): CandidateCircuit {
         })
   })
   const what = sample === null ? 'nominal' : `Monte Carlo sample index ${sample.index} of seed ${sample.seed}`
-  const note = `candidate ${shape.id}, ${what}; unit R = ${sizing.unitOhm} ohm, sigma_u = ${sizing.sigmaUnit}`
-  return { circuit, shape, unitOhm: sizing.unitOhm, sigmaUnit: sizing.sigmaUnit, note }
+  const d = c.design ? { handling: c.design.chosen.handling, scale: c.design.chosen.scale, corner: c.design.corner } : null
+  const how = d ? `; switches ${d.handling}, width ${d.scale}x, at ${(d.corner * 100).toFixed(1)} % of their design value` : ''
+  const note = `candidate ${shape.id}, ${what}; unit R = ${sizing.unitOhm} ohm, sigma_u = ${sizing.sigmaUnit}${how}`
+  return { circuit, shape, unitOhm: sizing.unitOhm, sigmaUnit: sizing.sigmaUnit, design: d, note }
 }

@@ -34,6 +34,7 @@ export function exportNetlist(input: NetlistInput): NetlistOutput {
     ...render(built.circuit, note),
     circuit: built.circuit,
     sizing: { unitOhm: built.unitOhm, sigmaUnit: built.sigmaUnit },
+    design: built.design,
     sample: input.sample
   }
 }

@@ -10,29 +10,41 @@ import { num, selector, selectorTree } from './deck'
 function leg(deck: Deck, id: string, node: string, ohm: number, swOhm: number, lo: string, hi: string, bit: string, what: string): void {
   const end = `${id.toLowerCase()}_s`
   const mid = swOhm > 0 ? `${id.toLowerCase()}_m` : end
-  deck.element(`R${id}`, [node, mid], num(ohm), `${what}: leg resistor (2R)`)
+  deck.element(`R${id}`, [node, mid], num(ohm), `${what}: leg resistor`)
   if (swOhm > 0) deck.element(`R${id}SW`, [mid, end], num(swOhm), `${what}: switch on-resistance`)
   selector(deck, `S${id}`, end, lo, hi, bit, `${what} switch`)
 }
 
-/** Series resistors and termination of an L-bit ladder whose MSB node is `n1`. */
-function ladderBody(deck: Deck, c: { legsOhm: number[], seriesOhm: number[], terminationOhm: number }, first: string): void {
+/** Series resistors and termination (with its dummy switch, when designed) of a ladder whose MSB node is `n1`. */
+function ladderBody(deck: Deck, c: { legsOhm: number[], seriesOhm: number[], terminationOhm: number, terminationSwitchOhm?: number }, first: string): void {
   const node = (i: number) => (i === 0 ? first : `n${i + 1}`)
   c.seriesOhm.forEach((r, i) => deck.element(`RSER${i + 1}`, [node(i), node(i + 1)], num(r), `series resistor ${i + 1} (R), between ladder nodes ${i + 1} and ${i + 2}`))
-  deck.element('RTERM', [node(c.legsOhm.length - 1), '0'], num(c.terminationOhm), 'termination (2R) from the LSB node to ground')
+  const dummy = c.terminationSwitchOhm ?? 0
+  const last = node(c.legsOhm.length - 1)
+  if (dummy > 0) {
+    deck.element('RTERM', [last, 'term_d'], num(c.terminationOhm), 'termination (2R) from the LSB node')
+    deck.element('RTERMSW', ['term_d', '0'], num(dummy), 'dummy switch in the termination, always on (matches the leg switches)')
+    return
+  }
+  deck.element('RTERM', [last, '0'], num(c.terminationOhm), 'termination (2R) from the LSB node to ground')
+}
+
+/** The switch of leg i: its own on-resistance when the design gives one per leg, else the common one. */
+function legSwitch(c: { switchOhm?: number, legSwitchOhm?: number[] }, i: number): number {
+  return c.legSwitchOhm ? c.legSwitchOhm[i]! : (c.switchOhm ?? 0)
 }
 
 /** Voltage-mode ladder: node n1 is the output node `out`. */
 export function emitR2rVoltage(deck: Deck, c: R2rVoltageInput): void {
   const node = (i: number) => (i === 0 ? 'out' : `n${i + 1}`)
-  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, node(i), r, c.switchOhm ?? 0, '0', 'ref', `b${i + 1}`, `leg ${i + 1}`))
+  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, node(i), r, legSwitch(c, i), '0', 'ref', `b${i + 1}`, `leg ${i + 1}`))
   ladderBody(deck, c, 'out')
 }
 
 /** Current-mode ladder: V_REF drives n1 (= `ref`); legs steer to the output pin `out` or ground. */
 export function emitR2rCurrent(deck: Deck, c: R2rCurrentInput): void {
   const node = (i: number) => (i === 0 ? 'ref' : `n${i + 1}`)
-  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, node(i), r, c.switchOhm ?? 0, '0', 'out', `b${i + 1}`, `leg ${i + 1}`))
+  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, node(i), r, legSwitch(c, i), '0', 'out', `b${i + 1}`, `leg ${i + 1}`))
   ladderBody(deck, c, 'ref')
 }
 
@@ -43,10 +55,10 @@ export function emitSegmented(deck: Deck, c: SegmentedInput): void {
   c.unaryLegsOhm.forEach((r, j) => {
     const expr = `min(1,max(0,floor((V(code)+0.5)/${2 ** l})-${j}))`
     deck.element(`BTHERM${j + 1}`, [`t${j + 1}`, '0'], `V=${expr}`, `thermometer bit ${j + 1}: 1 V when the upper ${c.unaryBits} bits exceed ${j}`)
-    leg(deck, `UNARY${j + 1}`, 'out', r, sw, '0', 'ref', `t${j + 1}`, `unary leg ${j + 1}`)
+    leg(deck, `UNARY${j + 1}`, 'out', r, c.unaryLegSwitchOhm ? c.unaryLegSwitchOhm[j]! : sw, '0', 'ref', `t${j + 1}`, `unary leg ${j + 1}`)
   })
   deck.element('RJOINT', ['out', 'n1'], num(c.jointOhm), 'joint resistor (R) from the output node to the ladder MSB node')
-  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, `n${i + 1}`, r, sw, '0', 'ref', `b${c.unaryBits + i + 1}`, `ladder leg ${i + 1}`))
+  c.legsOhm.forEach((r, i) => leg(deck, `LEG${i + 1}`, `n${i + 1}`, r, legSwitch(c, i), '0', 'ref', `b${c.unaryBits + i + 1}`, `ladder leg ${i + 1}`))
   ladderBody(deck, c, 'n1')
 }
 

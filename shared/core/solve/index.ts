@@ -10,8 +10,27 @@ import type { CircuitSolution } from './types'
 
 export type { CircuitSolution } from './types'
 
+/**
+ * A ladder or segmented input with per-leg switches folded into its legs (a switch in series with
+ * its leg in either position, and the termination's dummy switch, are plain series resistance):
+ * the same circuit with `switchOhm` 0, which the solvers below handle.
+ */
+export function foldSwitches(input: SolveInput): SolveInput {
+  if (input.topology !== 'r2r-voltage' && input.topology !== 'r2r-current' && input.topology !== 'segmented') return input
+  const sw = input.switchOhm ?? 0
+  const legSw = input.legSwitchOhm
+  const termSw = input.terminationSwitchOhm ?? 0
+  if (!legSw && termSw === 0 && (input.topology !== 'segmented' || !input.unaryLegSwitchOhm)) return input
+  const legsOhm = input.legsOhm.map((r, i) => r + (legSw ? legSw[i]! : sw))
+  const base = { ...input, legsOhm, terminationOhm: input.terminationOhm + termSw, switchOhm: 0, legSwitchOhm: undefined, terminationSwitchOhm: undefined }
+  if (input.topology !== 'segmented') return base
+  const unarySw = input.unaryLegSwitchOhm
+  return { ...base, topology: 'segmented', unaryLegsOhm: input.unaryLegsOhm.map((r, j) => r + (unarySw ? unarySw[j]! : sw)), unaryLegSwitchOhm: undefined } as SolveInput
+}
+
 /** Exact nodal solution of every code as typed arrays (the fast path for internal callers). */
-export function solveCircuitArrays(input: SolveInput): CircuitSolution {
+export function solveCircuitArrays(raw: SolveInput): CircuitSolution {
+  const input = foldSwitches(raw)
   switch (input.topology) {
     case 'string': return solveString(input)
     case 'r2r-voltage': return solveR2rVoltage(input)
@@ -25,7 +44,8 @@ export function solveCircuitArrays(input: SolveInput): CircuitSolution {
  * The output level of every code (V, or A in current mode) exactly as `solveCircuitArrays`
  * gives it, without I_REF and R_out (for callers that need only the transfer curve).
  */
-export function solveCircuitLevels(input: SolveInput): Float64Array {
+export function solveCircuitLevels(raw: SolveInput): Float64Array {
+  const input = foldSwitches(raw)
   switch (input.topology) {
     case 'string': return stringLevels(input)
     case 'r2r-voltage': return r2rVoltageLevels(input)

@@ -24,6 +24,7 @@ import { absorbEnvelope, addTrial, createTally } from './accumulator'
 import type { Envelope } from './envelope'
 import { createEnvelope } from './envelope'
 import { newLinearityResult } from './linearity'
+import type { LinearityResult } from './linearity'
 import { createFastNormals, deriveSeed } from './rng'
 import { claimWasmNormals } from './wasm-kernels'
 import type { FilledRange } from './ziggurat'
@@ -57,13 +58,13 @@ export function runMonteCarloChunk(chunk: McChunk, samplers: readonly TrialSampl
 }
 
 /** A normal buffer and its generator: the JS fallback of `claimWasmNormals`. */
-interface NormalBuffer {
+export interface NormalBuffer {
   z: Float64Array
   readonly filled: FilledRange
   fill: (start: number, end: number) => void
 }
 
-function jsNormals(seed: number, count: number): NormalBuffer {
+export function jsNormals(seed: number, count: number): NormalBuffer {
   const gen = createFastNormals(seed)
   const z = new Float64Array(count)
   return { z, filled: gen.filled, fill: (start, end) => gen.fill(z, start, end) }
@@ -102,4 +103,36 @@ function runTrials(chunk: McChunk, samplers: readonly TrialSampler[], normals: n
     }
   })
   return samplers.map(s => tallies[keys.indexOf(s.key)]!)
+}
+
+/**
+ * Runs `trials` trials of every sampler on common random numbers from `seed` (same generator and
+ * buffer as a chunk) and hands each trial's result to `visit(trial, samplerIndex, result)`.
+ * Samplers with equal keys are run once per trial. Used by the sampled sizing, which needs
+ * each trial's extremes rather than pass counts.
+ */
+export function visitTrials(seed: number, trials: number, samplers: readonly TrialSampler[], visit: (trial: number, sampler: number, r: LinearityResult) => void): void {
+  const normals = samplers.reduce((mx, s) => Math.max(mx, s.normals), 0)
+  const wasm = claimWasmNormals(seed, normals)
+  const gen = wasm ?? jsNormals(seed, normals)
+  try {
+    const keys = [...new Set(samplers.map(s => s.key))]
+    const first = keys.map(k => samplers.find(s => s.key === k)!)
+    const owner = samplers.map(s => keys.indexOf(s.key))
+    const results = keys.map(() => newLinearityResult())
+    const prefix = Math.min(normals, first.find(s => s.summedPrefix !== undefined)?.summedPrefix ?? 0)
+    const summary: NormalsSummary = { count: prefix, sum: 0, hiK: 0, loK: 0 }
+    const given = first.map(s => (s.summedPrefix === prefix && prefix > 0 ? summary : undefined))
+    for (let t = 0; t < trials; t++) {
+      gen.fill(0, prefix)
+      summary.sum = gen.filled.sum
+      summary.hiK = gen.filled.hiK
+      summary.loK = gen.filled.loK
+      gen.fill(prefix, normals)
+      for (let i = 0; i < first.length; i++) first[i]!.run(gen.z, results[i]!, undefined, given[i])
+      for (let j = 0; j < samplers.length; j++) visit(t, j, results[owner[j]!]!)
+    }
+  } finally {
+    wasm?.release()
+  }
 }

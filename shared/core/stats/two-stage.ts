@@ -34,6 +34,8 @@ export interface TwoStageSample {
   buffered: boolean
   offsetLo: number
   offsetHi: number
+  /** unbuffered: on-resistance of each of the two coarse selection switches in series with the fine string (same unit) */
+  switchRel?: number
 }
 
 /** Fills A_m, B_m (levels per V_REF) and S_c; returns ΣR_f. */
@@ -55,10 +57,13 @@ function segmentsOf(x: TwoStageSample, w: TwoStageScratch): number {
       w.a[m] = below / total + x.offsetLo
       w.b[m] = (rc / total + x.offsetHi - x.offsetLo) / sf
     } else {
-      const par = (rc * sf) / (rc + sf)
+      // the fine string hangs across rc through two selection switches: taps sit sw above S_c
+      const sw = x.switchRel ?? 0
+      const rf = sf + 2 * sw
+      const par = (rc * rf) / (rc + rf)
       const rTot = total - rc + par
-      w.a[m] = below / rTot
-      w.b[m] = par / rTot / sf
+      w.b[m] = par / rTot / rf
+      w.a[m] = below / rTot + w.b[m]! * sw
     }
     below += rc
   }

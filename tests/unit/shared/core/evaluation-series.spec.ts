@@ -20,7 +20,8 @@ const process = {
   sheetOhmPerSq: 1000, matchingPctUm: 1.0, matchingConvention: 'pair', unitOhm: 10000, switchOhm: 400, switchSkewS: 1e-10,
   switchChargeC: 1e-15, switchAreaUm2: 4, gateAreaUm2: 2, layoutOverhead: 2, minWidthUm: 0.4, minLengthUm: 1
 }
-const options = { topologies: ['string', 'r2r-voltage', 'r2r-current', 'segmented', 'two-stage-string'], trials: 0, seed: 3, inlDefinition: 'endpoint', envelopePoints: 64 }
+// switches left uncompensated on purpose (switchHandling 'none'): the per-code series must show their error
+const options = { topologies: ['string', 'r2r-voltage', 'r2r-current', 'segmented', 'two-stage-string'], trials: 0, seed: 3, inlDefinition: 'endpoint', envelopePoints: 64, switchHandling: 'none' }
 
 type PerCode = Record<'transferErrorLsb' | 'inlLsb' | 'dnlLsb', { codes: number[], min: (number | null)[], max: (number | null)[] }>
 type Envelope = { samples: number, codes: number[], dnlMinLsb: number[], dnlMaxLsb: number[] }
@@ -53,7 +54,7 @@ describe('nominal per-code series against ngspice', () => {
   for (const [id, candidate] of cases) {
     it(`${id}: transfer error, INL and DNL of every code match the definitions applied to ngspice's DC sweep`, () => {
       const c = out.candidates.find(x => x.id === id)!
-      const deck = exportNetlist(netlistInputSchema.parse({ spec, process, candidate }))
+      const deck = exportNetlist(netlistInputSchema.parse({ spec, process, candidate, options }))
       const dc = runNgspice(deck.netlist, [deck.dcFile]).files[deck.dcFile]!
       const levels = dc.rows.map(r => r[1]!)
       expect(levels).toHaveLength(64)
@@ -141,10 +142,10 @@ describe('Monte Carlo DNL envelope', () => {
 
 describe('analytic yield against unit area', () => {
   const out = evaluateSpec(parseEvaluateInput({ spec: { ...spec, bits: 10 }, process, options }))
-  it('passes through the candidate\'s own analytic yields at its drawn unit and follows the Pelgrom law σ_u ∝ 1/√A (MODELS.md §4.1)', () => {
+  it('passes through the candidate\'s own fast yields at its drawn unit and follows the Pelgrom law σ_u ∝ 1/√A (MODELS.md §4.1)', () => {
     for (const c of out.candidates) {
       const y = yieldCurve(c)
-      expect(y.model).toBe('analytic')
+      expect(y.model).toBe(metric(c, 'fastYieldTrials') > 0 ? 'sampled' : 'analytic')
       const i = y.unitAreaUm2.indexOf(metric(c, 'unitAreaUm2'))
       expect(i).toBe(8)
       expect(y.inlYield[i]).toBe(metric(c, 'inlYieldAnalytic'))
@@ -154,7 +155,7 @@ describe('analytic yield against unit area', () => {
       for (let j = 1; j < y.yield.length; j++) expect(y.yield[j]!).toBeGreaterThanOrEqual(y.yield[j - 1]!)
     }
   })
-  it('the DNL yield of a string is Π over the 2^N − 1 steps of (2Φ(T/σ_u) − 1) at every area (MODELS.md §4.3, σ_DNL ≈ σ_u)', () => {
+  it('the DNL yield of a string is Π over the 2^N − 1 steps of (2Φ(T/σ_u) − 1) at every area, within the sizing sample\'s noise (MODELS.md §4.3, σ_DNL ≈ σ_u)', () => {
     // a tight DNL target, so the string is sized by DNL and the curve crosses the interesting range
     const tight = evaluateSpec(parseEvaluateInput({ spec: { ...spec, bits: 10, dnlTargetLsb: 0.02 }, process, options: { ...options, topologies: ['string'] } }))
     const c = tight.candidates.find(x => x.id === 'string-direct')!
@@ -174,7 +175,10 @@ describe('analytic yield against unit area', () => {
       const z = 0.02 / s
       if (z > 6) return
       const perStep = 1 - erfc(z / Math.SQRT2)
-      expect(y.dnlYield[j]).toBeCloseTo(perStep ** 1023, 4)
+      const want = perStep ** 1023
+      // the curve is read from the sizing sample: binomial noise (4 standard errors) plus the fitted tail's slack
+      const trials = metric(c, 'fastYieldTrials')
+      expect(Math.abs(y.dnlYield[j]! - want)).toBeLessThan(4 * Math.sqrt(want * (1 - want) / trials) + 0.004)
       checked++
     })
     expect(checked).toBeGreaterThan(8)

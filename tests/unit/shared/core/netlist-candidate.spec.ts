@@ -29,13 +29,14 @@ function errorOf(raw: unknown): string {
 }
 
 describe('netlist of a candidate from a spec', () => {
-  it('builds the nominal circuit with the given unit R and switch (R-2R legs = 2 units)', () => {
-    const out = exportNetlist(parse({ spec, process, candidate: { topology: 'r2r-voltage' }, sample: null }))
+  it('builds the nominal circuit with the given unit R and switch (R-2R legs = 2 units, switches left as they are)', () => {
+    const out = exportNetlist(parse({ spec, process, candidate: { topology: 'r2r-voltage' }, sample: null, options: { switchHandling: 'none', switchScale: 1 } }))
     expect(out.circuit?.topology).toBe('r2r-voltage')
     if (out.circuit?.topology !== 'r2r-voltage') throw new Error('unexpected')
     expect(out.circuit.legsOhm).toEqual(Array(6).fill(20e3))
     expect(out.circuit.seriesOhm).toEqual(Array(5).fill(10e3))
-    expect(out.circuit.switchOhm).toBe(50)
+    expect(out.circuit.legSwitchOhm).toEqual(Array(6).fill(50))
+    expect(out.design).toEqual({ handling: 'none', scale: 1, corner: 0 })
     expect(out.sizing?.unitOhm).toBe(10e3)
     expect(out.sample).toBeNull()
     expect(out.netlist).toMatch(/^\* candidate r2r-voltage, nominal; unit R = 10000 ohm/m)
@@ -47,12 +48,14 @@ describe('netlist of a candidate from a spec', () => {
   })
 
   it('draws a reproducible Monte Carlo sample with the sized σ_u, different per index', () => {
-    const raw = { spec, process, candidate: { topology: 'segmented', unaryBits: 3 }, sample: { seed: 7, index: 2 } }
+    const raw = { spec, process, candidate: { topology: 'segmented', unaryBits: 3 }, sample: { seed: 7, index: 2 }, options: { switchHandling: 'absorbed' } }
     const a = exportNetlist(parse(raw))
     expect(exportNetlist(parse(raw)).netlist).toBe(a.netlist)
     expect(exportNetlist(parse({ ...raw, sample: { seed: 7, index: 3 } })).netlist).not.toBe(a.netlist)
     if (a.circuit?.topology !== 'segmented') throw new Error('unexpected')
-    const rel = a.circuit.unaryLegsOhm.map(r => r / 20e3 - 1)
+    // the engine absorbs the 50 Ω switch into each leg (2R − r), so legs are drawn about 20 kΩ − 50 Ω
+    expect(a.design?.handling).toBe('absorbed')
+    const rel = a.circuit.unaryLegsOhm.map(r => r / (20e3 - 50) - 1)
     expect(rel.some(x => x !== 0)).toBe(true)
     const sigma = a.sizing!.sigmaUnit
     for (const x of rel) expect(Math.abs(x)).toBeLessThan(6 * sigma)

@@ -73,14 +73,15 @@ function analyticStats(c: CandidateContext, input: EvaluateInput, trace?: Trace)
   const { shape, sizing, fast } = c
   const twoR = input.process.twoRConstruction
   const s = input.spec
-  if (trace && fast.model === 'closed-form') {
+  if (trace && fast.model !== 'sampled') {
     analyticInlYield(shape, twoR, sizing.sigmaUnit, s.inlTargetLsb, trace)
     analyticDnlYield(shape, twoR, sizing.sigmaUnit, s.dnlTargetLsb, trace)
     analyticMonotonicYield(shape, twoR, sizing.sigmaUnit, trace)
   }
   if (trace) {
     const entry = (key: string, criterion: string, result: number) => {
-      trace[key] = { kind: 'procedure', procedure: fast.model === 'sampled' ? 'sampled-yield' : 'closed-form-yield', inputs: { trials: fast.trials, criterion, sigmaUnit: sizing.sigmaUnit }, result }
+      const procedure = fast.model === 'closed-form' ? 'closed-form-yield' : fast.model === 'sampled' || criterion === 'INL' ? (fast.model === 'sampled' ? 'sampled-yield' : 'bridge-sample-yield') : 'closed-form-yield'
+      trace[key] = { kind: 'procedure', procedure, inputs: { trials: fast.trials, criterion, sigmaUnit: sizing.sigmaUnit }, result }
     }
     entry('inlYieldAnalytic', 'INL', fast.yields.inlYield)
     entry('dnlYieldAnalytic', 'DNL', fast.yields.dnlYield)

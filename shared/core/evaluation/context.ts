@@ -11,7 +11,7 @@ import type { SamplerParams } from '../models/samplers'
 import { createSampler } from '../models/samplers'
 import type { CandidateShape } from '../models/shapes'
 import { candidateShapes, coarseToFineRatio } from '../models/shapes'
-import type { SizingProcess, SizingSpec, UnitSizing } from '../models/sizing'
+import type { SampledSigmas, SizingProcess, SizingSpec, UnitSizing } from '../models/sizing'
 import { chooseUnitOhm, sizeUnit } from '../models/sizing'
 import type { CandidateDesign } from './design'
 import { chooseDesign } from './design'
@@ -21,7 +21,8 @@ import { SAMPLED_MAX_NORMALS, fastYields, nominalErrors, sampleSizing, sizingTri
 
 /** How a candidate's fast yields and sizing were found. */
 export interface FastFigures {
-  model: 'sampled' | 'closed-form'
+  /** 'sampled': the candidate's own sample; 'bridge-sample': INL from a scaled reference bridge, DNL closed form; 'closed-form' */
+  model: 'sampled' | 'bridge-sample' | 'closed-form'
   /** circuits in the sizing sample (0 for closed forms) */
   trials: number
   yields: FastYields
@@ -40,6 +41,10 @@ export interface CandidateContext {
   sampled: SampledSizing | null
   /** the spec the sizing read (closed forms: targets less the nominal error), for explain mode */
   sizingSpec: SizingSpec
+  /** bridge-sample candidates: the scaled reference bridge's critical σ's for the INL target */
+  bridge: Float64Array | null
+  /** the σ's the sizing took from a sample (undefined: closed forms), for explain mode */
+  sizingGiven?: SampledSigmas
 }
 
 /** Sizing view of the input (defaults already applied by the schema). */
@@ -69,8 +74,9 @@ function buildContext(shape: CandidateShape, input: EvaluateInput): CandidateCon
   const make = (sigma: number) => createSampler(shape, samplerParams(input, unitOhm, sigma, design))
   const probe = make(closed.sigmaRequired)
   if (probe.normals > SAMPLED_MAX_NORMALS) {
-    const { sizing, yields, feasible, sizingSpec } = closedFormYields(shape, input, design)
-    return { shape, design, sizing, sampler: samplerParams(input, unitOhm, sizing.sigmaUnit, design), fast: { model: 'closed-form', trials: 0, yields, feasible }, sampled: null, sizingSpec }
+    const { sizing, yields, feasible, sizingSpec, bridge, trials, given } = closedFormYields(shape, input, design)
+    const model = bridge ? 'bridge-sample' : 'closed-form'
+    return { shape, design, sizing, sampler: samplerParams(input, unitOhm, sizing.sigmaUnit, design), fast: { model, trials, yields, feasible }, sampled: null, sizingSpec, bridge, sizingGiven: given }
   }
   // pure: no error without resistor mismatch, so every trial's error scales with σ_u (one pass)
   const nominal = nominalErrors(make(0))
@@ -87,7 +93,9 @@ function buildContext(shape: CandidateShape, input: EvaluateInput): CandidateCon
     sampler: samplerParams(input, unitOhm, sizing.sigmaUnit, design),
     fast: { model: 'sampled', trials: sampled.trials, yields: fastYields(sampled.crit, sizing.sigmaUnit), feasible },
     sampled: feasible ? sampled : null,
-    sizingSpec: spec
+    sizingSpec: spec,
+    bridge: null,
+    sizingGiven: feasible ? sampled : undefined
   }
 }
 

@@ -9,7 +9,7 @@ import type { EvaluateInput } from '../contract/evaluate'
 import { SIZING_FORMULAS } from '../explain/registry'
 import { singleCoefficientUm } from '../models/sizing'
 import type { CandidateContext } from './context'
-import { closedFormAt } from './fast-closed-form'
+import { bridgeYieldsAt, closedFormAt } from './fast-closed-form'
 import { fastYields } from './sampled-sizing'
 
 /** Unit areas of the curve as multiples of the drawn unit area; 1 (the drawn unit) is included. */
@@ -30,14 +30,14 @@ export interface YieldAgainstArea {
 /** The curve of one candidate; empty when the candidate has no unit area. */
 export function yieldAgainstArea(c: CandidateContext, input: EvaluateInput): YieldAgainstArea {
   const { spec, process } = input
-  const out: YieldAgainstArea = { model: c.sampled ? 'sampled' : 'analytic', unitAreaUm2: [], sigmaUnit: [], inlYield: [], dnlYield: [], monotonicYield: [], yield: [] }
+  const out: YieldAgainstArea = { model: c.sampled || c.bridge ? 'sampled' : 'analytic', unitAreaUm2: [], sigmaUnit: [], inlYield: [], dnlYield: [], monotonicYield: [], yield: [] }
   const a0 = c.sizing.unitAreaUm2
   if (!(a0 > 0)) return out
   const aSingle = singleCoefficientUm(input.process)
   for (const f of YIELD_AREA_FACTORS) {
     const area = f === 1 ? a0 : a0 * f
     const sigma = f === 1 ? c.sizing.sigmaUnit : SIZING_FORMULAS.sigmaAchieved.compute({ A_s: aSingle, A_unit: area })
-    const y = f === 1 ? c.fast.yields : c.sampled ? fastYields(c.sampled.crit, sigma) : closedFormAt(c.shape, input, c.design, sigma)
+    const y = f === 1 ? c.fast.yields : c.sampled ? fastYields(c.sampled.crit, sigma) : c.bridge ? bridgeYieldsAt(c.shape, input, c.design, c.bridge, sigma) : closedFormAt(c.shape, input, c.design, sigma)
     out.unitAreaUm2.push(area)
     out.sigmaUnit.push(sigma)
     out.inlYield.push(y.inlYield)

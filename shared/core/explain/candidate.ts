@@ -56,12 +56,12 @@ function traceYields(input: EvaluateInput, mc: ReturnType<typeof monteCarloOf>, 
 
 /** Entries of the fast-yield and switch-design facts a candidate reports. */
 function traceFast(c: CandidateContext, trace: Trace): void {
-  const procedure = c.fast.model === 'sampled' ? 'sampled-yield' : 'closed-form-yield'
+  const procedure = c.fast.model === 'closed-form' ? 'closed-form-yield' : c.fast.model === 'sampled' ? 'sampled-yield' : 'bridge-sample-yield'
   const inputs = { trials: c.fast.trials, sigmaUnit: c.sizing.sigmaUnit }
   trace.yieldAnalytic = { kind: 'procedure', procedure, inputs: { ...inputs, criterion: 'all' }, result: c.fast.yields.yield }
   trace.fastYieldModel = { kind: 'procedure', procedure, inputs, result: c.fast.model }
   trace.fastYieldTrials = { kind: 'procedure', procedure, inputs, result: c.fast.trials }
-  trace.sizingFeasible = { kind: 'procedure', procedure: c.fast.model === 'sampled' ? 'sampled-sizing' : 'closed-form-yield', inputs, result: c.fast.feasible }
+  trace.sizingFeasible = { kind: 'procedure', procedure: c.fast.model === 'closed-form' ? 'closed-form-yield' : 'sampled-sizing', inputs, result: c.fast.feasible }
   const d = c.design?.chosen
   const design = { kind: 'procedure' as const, procedure: d ? 'switch-design' : 'not-applicable', inputs: { choice: c.design?.choice ?? null } }
   trace.switchHandling = { ...design, result: d?.handling ?? null }
@@ -80,7 +80,7 @@ export function explainCandidate(input: EvaluateInput, candidate: { id: string }
     throw new Error(`explainCandidate: no candidate ${candidate.id} in this input`)
   }
   const trace: Trace = {}
-  sizeUnit(c.shape, c.sizingSpec, input.process, trace, c.sampled ?? undefined)
+  sizeUnit(c.shape, c.sizingSpec, input.process, trace, c.sizingGiven)
   if (!trace.unitOhmChoice) {
     trace.unitOhmChoice = { kind: 'procedure', procedure: 'given', inputs: { unitOhm: c.sizing.unitOhm }, result: c.sizing.unitOhmChoice }
   }

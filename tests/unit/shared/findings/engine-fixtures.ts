@@ -15,7 +15,8 @@ const BASE = {
     sheetOhmPerSq: 1000, matchingPctUm: 1.0, matchingConvention: 'pair', unitOhm: 10000, switchOhm: 50, switchSkewS: 1e-10,
     switchChargeC: 1e-15, switchAreaUm2: 4, gateAreaUm2: 2, layoutOverhead: 2, minWidthUm: 0.4, minLengthUm: 1
   },
-  options: { trials: 0, seed: 7 }
+  // switches left as drawn (no compensation), so the switch rules see the raw switch error they are about
+  options: { trials: 0, seed: 7, switchHandling: 'none', switchScale: 1 }
 }
 
 interface Change { spec?: Record<string, unknown>, process?: Record<string, unknown>, options?: Record<string, unknown> }
@@ -28,8 +29,10 @@ export const VARIANTS = {
   refR: { spec: { refSourceOhm: 10, loadResistanceOhm: 1e6 } },
   noSwitchR: { process: { switchOhm: 0 } },
   bigSwitch10: { spec: { bits: 10 }, process: { switchOhm: 600 } },
+  bigSwitch10NoMono: { spec: { bits: 10, monotonicRequired: false }, process: { switchOhm: 600 } },
   mcBase: { options: { trials: 400 } },
   mcSwitch: { process: { switchOhm: 400 }, options: { trials: 400 } },
+  mcHugeSwitch: { process: { switchOhm: 3000 }, options: { trials: 400 } },
   mcSwitchNoMono: { spec: { monotonicRequired: false }, process: { switchOhm: 400 }, options: { trials: 400 } }
 } satisfies Record<string, Change>
 export type Variant = keyof typeof VARIANTS

@@ -10,9 +10,11 @@ interface Case { variant: Variant, candidate: string, edit?: (c: EvaluateCandida
 // Every built-in rule: a case the engine's own output fires it on, and one it stays silent on.
 const FIXTURES: Record<string, { fires: Case, quiet: Case }> = {
   'inl-yield-short': { fires: { variant: 'mcSwitch', candidate: 'r2r-voltage' }, quiet: { variant: 'mcBase', candidate: 'r2r-voltage' } },
-  'dnl-yield-short': { fires: { variant: 'mcSwitch', candidate: 'segmented-m3' }, quiet: { variant: 'mcBase', candidate: 'segmented-m3' } },
+  // the sizing now absorbs a moderate switch error into smaller σ_u; a switch of 30 % of R cannot be sized away
+  'dnl-yield-short': { fires: { variant: 'mcHugeSwitch', candidate: 'segmented-m3' }, quiet: { variant: 'mcBase', candidate: 'segmented-m3' } },
   'monotonic-yield-short': { fires: { variant: 'mcSwitch', candidate: 'r2r-voltage' }, quiet: { variant: 'mcSwitchNoMono', candidate: 'r2r-voltage' } },
-  'monotonicity-at-risk': { fires: { variant: 'bigSwitch10', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
+  // with monotonicity required, a nominally non-monotonic ladder now fails (monotonic-yield-short) rather than being at risk
+  'monotonicity-at-risk': { fires: { variant: 'bigSwitch10NoMono', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
   'area-over-budget': { fires: { variant: 'tinyArea', candidate: 'r2r-voltage' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },
   'area-near-budget': { fires: { variant: 'tinyArea', candidate: 'segmented-m4' }, quiet: { variant: 'tinyArea', candidate: 'segmented-m3' } },
   'update-rate-missed': { fires: { variant: 'base', candidate: 'string-direct' }, quiet: { variant: 'base', candidate: 'r2r-voltage' } },

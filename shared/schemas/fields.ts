@@ -84,12 +84,18 @@ export const FIELDS: readonly FieldDef[] = [
   { ...proc('switchSkewS', 'switches', 'Switch timing skew', 'Worst mismatch in switching instants across bits.'), kind: 'quantity', units: SECONDS },
   { ...proc('switchChargeC', 'switches', 'Switch charge injection', 'Charge one switch injects when it toggles.'), kind: 'quantity', units: u('C', 'a charge', 'C', true, '1 fC') },
   { ...proc('switchAreaUm2', 'switches', 'Area per switch', 'Placed area of one switch.'), kind: 'quantity', units: UM2 },
+  { ...proc('switchSpreadPct', 'switches', 'Switch spread against resistors', 'How far switch on-resistance moves relative to the resistors over process and temperature (±).'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '20 %') },
+  { ...proc('switchMismatchPct', 'switches', 'Switch mismatch', 'σ of one switch’s on-resistance about its design value; falls as 1/√width.'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '1 %') },
   { ...proc('gateAreaUm2', 'switches', 'Area per decoder gate', 'Placed area of one decoder gate.'), kind: 'quantity', units: UM2 },
 
   { ...opt('topologies', 'Candidates', 'Architectures to compare.'), kind: 'multi', choices: EVALUATE_TOPOLOGIES.map(t => ({ value: t, label: TOPOLOGY_LABELS[t] })) },
   { ...opt('trials', 'Monte Carlo trials', '0 for the analytic estimate only; more trials, tighter yield.'), kind: 'integer' },
   { ...opt('seed', 'Random seed', 'The same seed gives the same Monte Carlo result.'), kind: 'integer' },
-  { ...opt('inlDefinition', 'INL definition', 'Reference line for INL.'), kind: 'choice', choices: [{ value: 'endpoint', label: 'End-point' }, { value: 'best-fit', label: 'Best-fit line' }] }
+  { ...opt('inlDefinition', 'INL definition', 'Reference line for INL.'), kind: 'choice', choices: [{ value: 'endpoint', label: 'End-point' }, { value: 'best-fit', label: 'Best-fit line' }] },
+  {
+    ...opt('switchHandling', 'Switch handling', 'How ladder and segmented switches are compensated; “chosen by the engine” tries every handling.'), kind: 'choice',
+    choices: [{ value: 'auto', label: 'Chosen by the engine' }, { value: 'none', label: 'Left as drawn' }, { value: 'absorbed', label: 'Absorbed into the leg (2R − r)' }, { value: 'dummy', label: 'Matched dummy switch' }, { value: 'scaled', label: 'Widths scaled with weight' }]
+  }
 ]
 
 /** The fields of one section, in catalogue order. */
@@ -102,5 +108,5 @@ export function findField(section: FieldSection, key: string): FieldDef | undefi
   return FIELDS.find(f => f.section === section && f.key === key)
 }
 
-/** The process fields a preset stores (one column each in process_presets). */
-export const PRESET_PROCESS_KEYS = sectionFields('process').map(f => f.key)
+/** The process fields a preset stores (one column each in process_presets); the switch spread and mismatch are per study. */
+export const PRESET_PROCESS_KEYS = sectionFields('process').map(f => f.key).filter(k => k !== 'switchSpreadPct' && k !== 'switchMismatchPct')

@@ -16,8 +16,8 @@ function read(section: FieldDef['section'], key: string, text: string) {
 // The engine contract's field list as the issue fixes it (the names are the contract; no source needed beyond it).
 const CONTRACT_FIELDS = {
   spec: ['bits', 'vrefV', 'updateRateHz', 'loadCapacitanceF', 'loadResistanceOhm', 'inlTargetLsb', 'dnlTargetLsb', 'yieldTarget', 'monotonicRequired', 'areaBudgetMm2', 'glitchLimitVs', 'refSourceOhm', 'powerBudgetW'],
-  process: ['sheetOhmPerSq', 'matchingPctUm', 'matchingConvention', 'unitOhm', 'switchOhm', 'switchSkewS', 'switchChargeC', 'switchAreaUm2', 'gateAreaUm2', 'layoutOverhead', 'minWidthUm', 'minLengthUm'],
-  options: ['topologies', 'trials', 'seed', 'inlDefinition']
+  process: ['sheetOhmPerSq', 'matchingPctUm', 'matchingConvention', 'unitOhm', 'switchOhm', 'switchSkewS', 'switchChargeC', 'switchAreaUm2', 'gateAreaUm2', 'layoutOverhead', 'minWidthUm', 'minLengthUm', 'switchSpreadPct', 'switchMismatchPct'],
+  options: ['topologies', 'trials', 'seed', 'inlDefinition', 'switchHandling']
 }
 
 describe('field catalogue', () => {

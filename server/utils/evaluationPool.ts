@@ -4,7 +4,8 @@ import { availableParallelism } from 'node:os'
 import { dirname, join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { Piscina } from 'piscina'
-import { mergeEvaluation, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
+import { leanContext, mergeEvaluation, planContexts, planEvaluation, runEvaluationTask } from '#shared/core/evaluate'
+import type { CandidateContext } from '#shared/core/evaluate'
 import { runInSlots } from '#shared/core/evaluation/dispatch'
 import { encodeEvaluationOutput, type OutputForm } from './evaluationResult'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
@@ -66,11 +67,11 @@ function nextTurn(): Promise<void> {
  * Merge plus rule packs: tens of milliseconds for a 16-bit sweep (the rules engine most), which
  * on the request thread delayed every request arriving meanwhile, so a worker does it too.
  */
-async function finish(input: EvaluateInput, parts: (Part | string)[], packs: readonly RulePack[], form: OutputForm, signal?: AbortSignal): Promise<EvaluateOutput | string | Uint8Array> {
+async function finish(input: EvaluateInput, parts: (Part | string)[], packs: readonly RulePack[], form: OutputForm, contexts: CandidateContext[] | undefined, signal?: AbortSignal): Promise<EvaluateOutput | string | Uint8Array> {
   const p = usePool()
-  if (!p) return encodeEvaluationOutput(await applyFindings(input, mergeEvaluation(input, parts.map(parsePart)), packs), form)
+  if (!p) return encodeEvaluationOutput(await applyFindings(input, mergeEvaluation(input, parts.map(parsePart), contexts), packs), form)
   const partsJson = parts.map(x => (typeof x === 'string' ? x : JSON.stringify(x)))
-  const out = await p.run({ kind: 'finish', input, partsJson, packs: [...packs], as: form }, { signal }) as EvaluateOutput | string | Uint8Array
+  const out = await p.run({ kind: 'finish', input, partsJson, packs: [...packs], as: form, contexts }, { signal }) as EvaluateOutput | string | Uint8Array
   // a Buffer comes back from the worker as a plain Uint8Array
   return form === 'gzip' ? Buffer.from((out as Uint8Array).buffer, (out as Uint8Array).byteOffset, (out as Uint8Array).byteLength) : out
 }
@@ -101,8 +102,21 @@ export async function evaluateInPoolGzip(input: EvaluateInput, options: PoolOpti
 
 interface PoolOptions { signal?: AbortSignal, onProgress?: (p: EvaluationProgress) => void | Promise<void>, packs?: readonly RulePack[] }
 
+/**
+ * First phase on the pool: every candidate's context (switch design and sampled sizing), spread
+ * over the threads, so no thread sizes every candidate. Contexts cross back by structured clone
+ * (typed arrays); without a pool the tasks build them in-process.
+ */
+async function contextsInPool(input: EvaluateInput, signal?: AbortSignal): Promise<CandidateContext[] | undefined> {
+  const p = usePool()
+  if (!p) return undefined
+  const parts = await runInSlots(planContexts(input), p.maxThreads, task => p.run(task, { signal }) as Promise<Part>)
+  return parts.map(x => (x.kind === 'context' ? x.context : null)).filter((c): c is CandidateContext => c !== null)
+}
+
 async function evaluateAll(input: EvaluateInput, options: PoolOptions, form: OutputForm): Promise<EvaluateOutput | string | Uint8Array> {
-  const tasks = planEvaluation(input)
+  const contexts = await contextsInPool(input, options.signal)
+  const tasks = planEvaluation(input, contexts)
   // Every queued task listens on the one signal.
   if (options.signal) setMaxListeners(tasks.length + 10, options.signal)
   let done = 0
@@ -113,7 +127,7 @@ async function evaluateAll(input: EvaluateInput, options: PoolOptions, form: Out
     await options.onProgress?.({ done, total: tasks.length })
     return part
   })
-  const output = await finish(input, parts, options.packs ?? [], form, options.signal)
+  const output = await finish(input, parts, options.packs ?? [], form, contexts?.map(leanContext), options.signal)
   await nextTurn()
   return output
 }

@@ -11,7 +11,7 @@ import { setPriority } from 'node:os'
 import type { EvaluateInput } from '../../shared/core/contract/evaluate'
 import type { NetlistInput } from '../../shared/core/contract/netlist'
 import { exportNetlist } from '../../shared/core/netlist/export'
-import type { EvaluationPart, EvaluationTask } from '../../shared/core/evaluate'
+import type { CandidateContext, EvaluationPart, EvaluationTask } from '../../shared/core/evaluate'
 import { mergeEvaluation, runEvaluationTask } from '../../shared/core/evaluate'
 import type { EvaluateOutputWithFindings } from '../../shared/findings/index'
 import { applyFindings } from '../../shared/findings/index'
@@ -34,6 +34,8 @@ export interface FinishTask {
   partsJson: string[]
   packs: RulePack[]
   as: OutputForm
+  /** the contexts the first phase built (so the merge does not size the candidates again) */
+  contexts?: CandidateContext[]
 }
 
 /**
@@ -58,7 +60,7 @@ export default async function run(task: EvaluationTask | JsonTask | FinishTask |
   if (task.kind === 'json') return JSON.stringify(runEvaluationTask(task.task))
   if (task.kind === 'finish') {
     const parts = task.partsJson.map(p => JSON.parse(p) as EvaluationPart)
-    return encodeEvaluationOutput(await applyFindings(task.input, mergeEvaluation(task.input, parts), task.packs), task.as)
+    return encodeEvaluationOutput(await applyFindings(task.input, mergeEvaluation(task.input, parts, task.contexts), task.packs), task.as)
   }
   return runEvaluationTask(task)
 }

@@ -15,12 +15,15 @@ import type { McTally } from './stats/accumulator'
 import type { AnalyticCandidate } from './evaluation/analytic'
 import { buildCandidate } from './evaluation/candidate-output'
 import { cautionsFor } from './evaluation/cautions'
+import type { CandidateContext } from './evaluation/context'
 import { candidateContexts } from './evaluation/context'
 import type { EvaluationPart, EvaluationTask } from './evaluation/tasks'
-import { planTasks, runTask } from './evaluation/tasks'
+import { planContextTasks, planTasks, runTask } from './evaluation/tasks'
 import { ENGINE_VERSION } from './version'
 
 export type { EvaluationPart, EvaluationTask } from './evaluation/tasks'
+export type { CandidateContext } from './evaluation/context'
+export { leanContext } from './evaluation/tasks'
 export { MC_CHUNK_TRIALS } from './evaluation/tasks'
 export { ENGINE_VERSION } from './version'
 
@@ -29,9 +32,17 @@ export function parseEvaluateInput(raw: unknown): EvaluateInput {
   return evaluateInputSchema.parse(raw)
 }
 
-/** Splits an evaluation into independent tasks (Monte Carlo chunks first, then analytic parts). */
-export function planEvaluation(input: EvaluateInput): EvaluationTask[] {
-  return planTasks(input)
+/**
+ * Splits an evaluation into independent tasks (Monte Carlo chunks first, then analytic parts).
+ * A pool that first ran `planContexts` passes the contexts, so no task sizes a candidate again.
+ */
+export function planEvaluation(input: EvaluateInput, contexts?: readonly CandidateContext[]): EvaluationTask[] {
+  return planTasks(input, contexts)
+}
+
+/** One task per candidate building its context (switch design and sampled sizing): a pool's first phase. */
+export function planContexts(input: EvaluateInput): EvaluationTask[] {
+  return planContextTasks(input)
 }
 
 /** Runs one task; pure and synchronous, safe to call in a worker thread. */
@@ -52,7 +63,7 @@ function mergedTallies(parts: readonly EvaluationPart[]): Map<string, McTally> {
 }
 
 /** Combines task parts into the evaluate output (candidates in a stable order, plus the recommendation). */
-export function mergeEvaluation(input: EvaluateInput, parts: readonly EvaluationPart[]): EvaluateOutput {
+export function mergeEvaluation(input: EvaluateInput, parts: readonly EvaluationPart[], given?: readonly CandidateContext[]): EvaluateOutput {
   const analytic = new Map<string, AnalyticCandidate>()
   for (const p of parts) {
     if (p.kind === 'analytic') {
@@ -60,7 +71,7 @@ export function mergeEvaluation(input: EvaluateInput, parts: readonly Evaluation
     }
   }
   const tallies = mergedTallies(parts)
-  const candidates = candidateContexts(input).map((c) => {
+  const candidates = (given ?? candidateContexts(input)).map((c) => {
     const a = analytic.get(c.shape.id)
     if (!a) {
       throw new Error(`mergeEvaluation: missing analytic part of ${c.shape.id}`)

@@ -29,7 +29,6 @@ export interface YieldAgainstArea {
 
 /** The curve of one candidate; empty when the candidate has no unit area. */
 export function yieldAgainstArea(c: CandidateContext, input: EvaluateInput): YieldAgainstArea {
-  const { spec, process } = input
   const out: YieldAgainstArea = { model: c.sampled || c.bridge ? 'sampled' : 'analytic', unitAreaUm2: [], sigmaUnit: [], inlYield: [], dnlYield: [], monotonicYield: [], yield: [] }
   const a0 = c.sizing.unitAreaUm2
   if (!(a0 > 0)) return out

@@ -78,7 +78,6 @@ describe('fast yields agree with the Monte Carlo of the same evaluation', () => 
     const r = rng(20261205)
     const t: Tally = { compared: 0, off: [], oneSided: 0, wrongSide: [], sized: 0, short: [] }
     for (let i = 0; i < SPECS; i++) check(t, randomInput(r, i))
-    // eslint-disable-next-line no-console
     console.log(`fast yields: ${t.compared - t.off.length} of ${t.compared} within the Monte Carlo interval ± 0.03; ${t.oneSided - t.wrongSide.length} of ${t.oneSided} one-sided cases on the same side; ${t.sized - t.short.length} of ${t.sized} sized candidates reach the target`)
     expect(t.compared).toBeGreaterThan(50 * 12 * 3)
     expect(t.off).toEqual([])

@@ -68,6 +68,18 @@ describe('bench data upload', () => {
     expect(await db('audit_log').where({ action: 'bench_uploaded', target_id: String(id) })).toHaveLength(1)
   })
 
+  // Issue 13, finding 6: decided studies are read-only except notes, and bench data was accepted.
+  it.each(['decided', 'archived'])('refuses an upload to a %s study with 423 and stores nothing', async (status) => {
+    const id = await study(2)
+    await db('studies').where({ id }).update({ status })
+    const before = await benchCount()
+    const res = await upload<{ message: string }>(id, 'r2r-voltage', 'code,voltage\n0,0\n1,1\n2,2\n3,3\n')
+    expect(res.status).toBe(423)
+    expect(res.body.message).toContain('read-only')
+    expect(await benchCount()).toBe(before)
+    expect((await api(`/api/studies/${id}/bench`, { cookie: manager })).status).toBe(200)
+  })
+
   it('refuses a manager and another team', async () => {
     const id = await study(2)
     const text = 'code,voltage\n0,0\n1,1\n2,2\n3,3\n'

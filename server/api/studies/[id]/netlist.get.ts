@@ -1,5 +1,4 @@
 import { netlistSpecInputSchema } from '#shared/core/contract/netlist'
-import { exportNetlist } from '#shared/core/netlist/export'
 import { netlistCandidateOf } from '#shared/io/candidateId'
 import { netlistQuerySchema } from '#shared/schemas/io'
 import { idParamSchema } from '#shared/schemas/study'
@@ -28,12 +27,14 @@ export default defineApiHandler(async (event) => {
   }
   const sample = q.seed === undefined ? null : { seed: q.seed, index: q.index! }
   const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, candidate, sample, note: `study ${study.id} revision ${head.number}` })
-  const out = exportNetlist(input)
-  const bytes = Buffer.byteLength(out.netlist)
-  if (bytes > MAX_NETLIST_BYTES) {
-    const message = `the netlist of ${q.candidate} at ${head.spec.bits} bits is ${(bytes / 2 ** 20).toFixed(1)} MB, above the ${MAX_NETLIST_BYTES / 2 ** 20} MB download limit; the command line writes it: npm run cli -- netlist`
+  // Built on the worker pool under the user's heavy slot (a 16-bit string is 65,536 resistors); a
+  // file above the limit is refused there and its text never reaches this thread.
+  const signal = clientGone(event)
+  const file = await withHeavySlot(user, 'netlist', () => netlistFileInPool(input, MAX_NETLIST_BYTES, signal))
+  if (file.text === null) {
+    const message = `the netlist of ${q.candidate} at ${head.spec.bits} bits is ${(file.bytes / 2 ** 20).toFixed(1)} MB, above the ${MAX_NETLIST_BYTES / 2 ** 20} MB download limit; the command line writes it: npm run cli -- netlist`
     throw createError({ statusCode: 413, statusMessage: 'Netlist too large', message, data: { message } })
   }
   sendAttachment(event, 'text/plain; charset=utf-8', `${study.title}-${q.candidate}-${sample ? `seed${sample.seed}-index${sample.index}` : 'nominal'}.cir`)
-  return out.netlist
+  return file.text
 })

@@ -59,5 +59,7 @@ export default defineEventHandler(async (event) => {
   }
   const limit = upload ? BODY_LIMITS.upload : BODY_LIMITS.json
   if (declared > limit) throw refuse(413, `(input): the request body is larger than ${limit / 1e6} MB`)
-  event._requestBody = await readLimited(req, limit)
+  const body = await readLimited(req, limit)
+  // where h3's readRawBody (and so readBody, readMultipartFormData) finds a body already read
+  ;(req as unknown as Record<symbol, Promise<Buffer>>)[Symbol.for('h3RawBody')] = Promise.resolve(body)
 })

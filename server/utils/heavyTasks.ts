@@ -9,10 +9,10 @@ import { solveCircuit, solveCircuitLevels } from '../../shared/core/solve'
  * circuit, a netlist file and a candidate's nominal transfer. Each runs on the worker pool
  * (server/workers/evaluate.worker.ts), under the user's heavy slot (heavyRequests.ts).
  */
-export type HeavyTask =
-  | { kind: 'solve', input: SolveInput }
-  | { kind: 'netlist-file', input: NetlistInput, maxBytes: number }
-  | { kind: 'nominal', input: NetlistSpecInput }
+export type HeavyTask
+  = | { kind: 'solve', input: SolveInput }
+    | { kind: 'netlist-file', input: NetlistInput, maxBytes: number }
+    | { kind: 'nominal', input: NetlistSpecInput }
 
 /** A netlist file, or only its size when it is above `maxBytes` (the text never crosses back). */
 export interface NetlistFile { bytes: number, text: string | null }

@@ -10,7 +10,7 @@ export const LADDER16 = { topology: 'r2r-voltage', bits: 16, vrefV: 1, legsOhm: 
 async function call(url: string, path: string, cookie: string, body?: unknown): Promise<number> {
   const res = await fetch(`${url}${path}`, {
     method: body === undefined ? 'GET' : 'POST',
-    headers: { cookie, 'accept': 'application/json', ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: { cookie, accept: 'application/json', ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
     body: body === undefined ? undefined : JSON.stringify(body)
   })
   await res.arrayBuffer()
@@ -20,7 +20,7 @@ async function call(url: string, path: string, cookie: string, body?: unknown): 
 /** A 16-bit study with a saved revision (imported by `editorCookie`); returns its id. */
 export async function sixteenBitStudy(url: string, editorCookie: string): Promise<number> {
   const text = JSON.stringify([{ title: 'Heavy burst 16-bit', spec: SPEC16, process: PROCESS, options: { trials: 0 } }])
-  const res = await fetch(`${url}/api/studies/import`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: editorCookie }, body: JSON.stringify({ text }) })
+  const res = await fetch(`${url}/api/studies/import`, { method: 'POST', headers: { 'content-type': 'application/json', 'cookie': editorCookie }, body: JSON.stringify({ text }) })
   const body = await res.json() as { studies: { id: number }[] }
   if (res.status !== 201) throw new Error(`import answered ${res.status}`)
   return body.studies[0]!.id

@@ -79,8 +79,9 @@ describe('JSON routes take JSON', () => {
     ['application/x-www-form-urlencoded', `email=${encodeURIComponent(DEMO.manager)}&password=harrow-lake-demo`],
     ['text/plain', JSON.stringify({ email: DEMO.manager, password: 'harrow-lake-demo' })]
   ])('refuses a %s body with 415, signed out and signed in', async (type, text) => {
-    expect((await api('/api/auth/login', { method: 'POST', body: text, headers: { 'content-type': type } })).status).toBe(415)
-    const note = await api(`/api/studies/${studyId}/notes`, { method: 'POST', cookie: manager, body: type.startsWith('text') ? JSON.stringify({ body: 'form note' }) : 'body=form+note', headers: { 'content-type': type } })
+    const send = (path: string, body: string, cookie?: string) => fetch(`${inject('baseUrl')}${path}`, { method: 'POST', body, headers: { 'content-type': type, ...(cookie ? { cookie } : {}) } })
+    expect((await send('/api/auth/login', text)).status).toBe(415)
+    const note = await send(`/api/studies/${studyId}/notes`, type.startsWith('text') ? JSON.stringify({ body: 'form note' }) : 'body=form+note', manager)
     expect(note.status).toBe(415)
   })
 })

@@ -84,9 +84,15 @@ async function runJob(id: number, slot: number, teamId: number, input: EvaluateI
 /** The job as the API shows it (result only when asked), or null when not this team's. */
 export async function readEvaluationJob(teamId: number, id: number, withResult: boolean): Promise<EvaluationJobDto | null> {
   const columns = ['id', 'user_id', 'status', 'tasks_total', 'tasks_done', 'engine_version', 'error', 'created_at', 'heartbeat_at', 'finished_at']
-  await failAbandonedJobs({ id })
-  const row = await useDb()('evaluations').where({ id, team_id: teamId }).first(withResult ? [...columns, ...EVALUATION_RESULT_COLUMNS] : columns)
+  const read = () => useDb()('evaluations').where({ id, team_id: teamId }).first(withResult ? [...columns, ...EVALUATION_RESULT_COLUMNS] : columns)
+  let row = await read()
   if (!row) return null
+  const beat = new Date(row.heartbeat_at ?? row.created_at).getTime()
+  // a poll writes only when the job looks abandoned (its instance stopped refreshing it)
+  if (['queued', 'running'].includes(row.status) && !running.has(id) && Date.now() - beat > SLOT_STALE_MS) {
+    await failAbandonedJobs({ id })
+    row = await read()
+  }
   return {
     id: row.id,
     userId: row.user_id,

@@ -52,6 +52,28 @@ describe('heavy requests per user', () => {
     expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(200)
   })
 
+  // Issue 13, finding 5: a job left "running" by an instance that died kept its owner at the cap.
+  it('fails a job whose instance died (no heartbeat for over 60 s) with a reason, and its slot no longer counts', async () => {
+    await db('heavy_requests').where({ user_id: userId }).delete()
+    const user = await db('users').where({ id: userId }).first('team_id')
+    const old = new Date(Date.now() - 61_000)
+    const ids: number[] = []
+    for (let i = 0; i < 2; i++) {
+      const [id] = await db('evaluations').insert({ team_id: user.team_id, user_id: userId, status: 'running', tasks_total: 4, tasks_done: 1, input: JSON.stringify(EVALUATE), engine_version: 'dead-instance', created_at: old, heartbeat_at: old })
+      await db('heavy_requests').insert({ user_id: userId, kind: 'job', evaluation_id: id, started_at: old, heartbeat_at: new Date() })
+      ids.push(id!)
+    }
+    // the slots' heartbeats look fresh (as if the rows were just refreshed), but their jobs were abandoned
+    const job = await api<{ status: string, error: string }>(`/api/evaluations/${ids[0]}`, { cookie })
+    expect(job.body.status).toBe('failed')
+    expect(job.body.error).toMatch(/interrupted/)
+    const started = await api<{ id: number }>('/api/evaluations', { method: 'POST', cookie, body: EVALUATE })
+    expect(started.status, JSON.stringify(started.body)).toBe(202)
+    expect((await db('evaluations').where({ id: ids[1] }).first('status')).status).toBe('failed')
+    await api(`/api/evaluations/${started.body.id}`, { method: 'DELETE', cookie })
+    await db('heavy_requests').where({ user_id: userId }).delete()
+  })
+
   it('builds the 16-bit string netlist (65,536 resistors) on the worker pool and answers JSON', async () => {
     await db('heavy_requests').where({ user_id: userId }).delete()
     const res = await api<{ netlist: string, format: string }>('/api/netlist', { method: 'POST', cookie, body: { spec: SPEC, process: PROCESS, candidate: { topology: 'string' } } })

@@ -136,5 +136,12 @@ describe('netlist download run in ngspice, measured INL/DNL against the engine',
     const res = await api<{ message: string }>(`/api/studies/${big}/netlist?candidate=string-direct`, { cookie: engineer })
     expect(res.status).toBe(413)
     expect(res.body.message).toMatch(/above the 16 MB download limit/)
-  })
+    // refused before building: 2^16 codes × at least 500 B (measured 546–608 B per code, 8–14 bits)
+    expect(res.body.message).toMatch(/at least 31\.3 MB/)
+    // 15 bits: the lower bound (15.6 MB) is under the limit, so it is built on the pool and refused there
+    const mid = await study(15, { topologies: ['string'], trials: 0 })
+    const built = await api<{ message: string }>(`/api/studies/${mid}/netlist?candidate=string-direct`, { cookie: engineer })
+    expect(built.status).toBe(413)
+    expect(built.body.message).not.toMatch(/at least/)
+  }, 120_000)
 })

@@ -26,9 +26,13 @@ export async function sixteenBitStudy(url: string, editorCookie: string): Promis
   return body.studies[0]!.id
 }
 
-export interface BurstResult { statuses: number[], healthMs: number[] }
+/** Statuses of the 16-bit string netlists (refused before building: 2^16 codes × at least 500 B) and of the rest, which compete for slots. */
+export interface BurstResult { stringNetlists: number[], statuses: number[], healthMs: number[] }
 
-/** `perKind` study-netlist downloads (string, 16 bits) and as many 16-bit solves at once, health probed every 20 ms. */
+/**
+ * At once, `perKind` of each: 16-bit string netlist downloads, 16-bit two-stage netlist downloads
+ * and 16-bit solves; health probed every 20 ms meanwhile.
+ */
 export async function heavyBurst(url: string, cookie: string, studyId: number, perKind: number): Promise<BurstResult> {
   const healthMs: number[] = []
   let busy = true
@@ -40,14 +44,15 @@ export async function heavyBurst(url: string, cookie: string, studyId: number, p
       await new Promise(r => setTimeout(r, 20))
     }
   })()
-  const requests = Array.from({ length: perKind }, () => [
-    call(url, `/api/studies/${studyId}/netlist?candidate=string-direct`, cookie),
+  const strings = Array.from({ length: perKind }, () => call(url, `/api/studies/${studyId}/netlist?candidate=string-direct`, cookie))
+  const competing = Array.from({ length: perKind }, () => [
+    call(url, `/api/studies/${studyId}/netlist?candidate=two-stage-buffered`, cookie),
     call(url, '/api/solve', cookie, LADDER16)
   ]).flat()
-  const statuses = await Promise.all(requests)
+  const [stringNetlists, statuses] = await Promise.all([Promise.all(strings), Promise.all(competing)])
   busy = false
   await prober
-  return { statuses, healthMs }
+  return { stringNetlists, statuses, healthMs }
 }
 
 export function percentile(values: number[], p: number): number {

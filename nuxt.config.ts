@@ -37,6 +37,9 @@ export default defineNuxtConfig({
     invitationMaxAgeS: 7 * 24 * 60 * 60,
     // Synchronous evaluations, netlists and dry runs one user may have running at once (429 beyond).
     heavyRequestsPerUser: 2,
+    // Addresses of reverse proxies whose X-Forwarded-For / X-Forwarded-Host are believed
+    // (NUXT_TRUSTED_PROXIES, comma separated); from anyone else those headers are ignored.
+    trustedProxies: '',
     public: {
       // true when a local SMTP catcher is configured (NUXT_PUBLIC_MAIL_CATCHER)
       mailCatcher: false

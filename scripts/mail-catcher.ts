@@ -13,6 +13,8 @@ import { SMTPServer } from 'smtp-server'
 
 export interface CaughtMail {
   id: string
+  /** the Message-ID header, angle brackets included ('' when the message had none) */
+  messageId: string
   receivedAt: string
   from: string
   to: string[]
@@ -35,6 +37,7 @@ export function startMailCatcher(options: { port: number, dir: string }): Promis
         const id = `${receivedAt.getTime()}-${process.pid}-${counter++}`
         const caught: CaughtMail = {
           id,
+          messageId: mail.messageId ?? '',
           receivedAt: receivedAt.toISOString(),
           from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
           to: session.envelope.rcptTo.map(r => r.address),

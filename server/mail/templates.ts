@@ -26,6 +26,21 @@ export function invitationMail(data: { teamName: string, inviterName: string, in
   return { subject: `You are invited to ${data.teamName} on Rungwise`, text: text(paragraphs, action), html: layout('Join your team on Rungwise', paragraphs, action) }
 }
 
+/**
+ * An invitation to an address that already has a Rungwise account in another team: no link (an
+ * address belongs to one team), and what the recipient can do instead. The inviting admin gets the
+ * same answer as for a new address, so only the owner of the address learns this.
+ */
+export function invitationForExistingAccountMail(data: { teamName: string, inviterName: string, inviteeName: string, role: string }): MailContent {
+  const paragraphs = [
+    `Hello ${data.inviteeName},`,
+    `${data.inviterName} invited you to join ${data.teamName} on Rungwise as ${data.role}.`,
+    'This address already has a Rungwise account in another team, and an address belongs to one team only, so there is no link to accept.',
+    `To join ${data.teamName}, ask ${data.inviterName} to invite a different address of yours. If you did not expect this message, you can ignore it.`
+  ]
+  return { subject: `You are invited to ${data.teamName} on Rungwise`, text: text(paragraphs), html: layout('Join a team on Rungwise', paragraphs) }
+}
+
 /** A member was mentioned in a note: who wrote it, where, and the first lines of it. */
 export function mentionMail(data: { recipientName: string, authorName: string, studyTitle: string, about: string, excerpt: string, url: string }): MailContent {
   const excerpt = data.excerpt.length > 600 ? `${data.excerpt.slice(0, 600)}…` : data.excerpt

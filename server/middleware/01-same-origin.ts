@@ -6,7 +6,9 @@ export default defineEventHandler((event) => {
   if (!event.path.startsWith('/api/') || ['GET', 'HEAD', 'OPTIONS'].includes(event.method)) return
   const source = getRequestHeader(event, 'origin') ?? getRequestHeader(event, 'referer')
   if (!source) return // non-browser clients (CLI scripts, tests) send no Origin; the session cookie still decides
-  const host = getRequestHeader(event, 'x-forwarded-host') ?? getRequestHeader(event, 'host')
+  // X-Forwarded-Host only from a configured proxy: anyone else could name any host in it.
+  const forwardedHost = fromTrustedProxy(event) ? getRequestHeader(event, 'x-forwarded-host') : undefined
+  const host = forwardedHost ?? getRequestHeader(event, 'host')
   let sourceHost: string | null = null
   try {
     sourceHost = new URL(source).host

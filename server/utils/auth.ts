@@ -15,7 +15,7 @@ export async function startSession(event: H3Event, userId: number): Promise<void
   const { sessionMaxAgeS, cookieSecure, https } = useRuntimeConfig()
   const tokenId = randomBytes(24).toString('hex')
   const expiresAt = new Date(Date.now() + sessionMaxAgeS * 1000)
-  await useDb()('sessions').insert({ token_id: tokenId, user_id: userId, expires_at: expiresAt, ip: getRequestIP(event, { xForwardedFor: false }) ?? null })
+  await useDb()('sessions').insert({ token_id: tokenId, user_id: userId, expires_at: expiresAt, ip: clientAddress(event) })
   const jwt = await new SignJWT({ sub: String(userId) }).setProtectedHeader({ alg: 'HS256' })
     .setJti(tokenId).setIssuedAt().setExpirationTime(Math.floor(expiresAt.getTime() / 1000)).sign(secretKey())
   setCookie(event, SESSION_COOKIE, jwt, { httpOnly: true, sameSite: 'lax', secure: Boolean(cookieSecure) || Boolean(https), path: '/', maxAge: sessionMaxAgeS })

@@ -36,7 +36,7 @@ function workerFile(): string | null {
  * server was down to one thread and the next evaluation waited for a cold second one (start,
  * bundle load, JIT warm-up) while its tasks queued on the first.
  */
-function usePool(): Piscina | null {
+export function usePool(): Piscina | null {
   if (pool === undefined) {
     const filename = workerFile()
     const threads = Math.max(1, availableParallelism())

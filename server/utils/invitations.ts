@@ -3,7 +3,7 @@ import bcrypt from 'bcryptjs'
 import type { InvitationCreate } from '#shared/schemas/team'
 import type { SessionUser } from '#shared/types/auth'
 import type { InvitationPreviewDto } from '#shared/types/team'
-import { invitationMail } from '../mail/templates'
+import { invitationForExistingAccountMail, invitationMail } from '../mail/templates'
 
 const ROLE_WORDS = { admin: 'an admin', architect: 'an architect', engineer: 'an engineer', manager: 'a program manager' } as const
 
@@ -11,20 +11,29 @@ function hashToken(token: string): string {
   return createHash('sha256').update(token).digest('hex')
 }
 
-/** Creates the invitation and queues its e-mail in one transaction; 409 if the address is taken. */
+/**
+ * Creates the invitation and queues its e-mail in one transaction; 409 if the address is already a
+ * member of this team. An address with an account in another team gets the same answer as a new
+ * one (the admin must not learn who uses Rungwise elsewhere): the row is stored alike, but its
+ * mail carries no link and tells the recipient what to do instead.
+ */
 export async function inviteMember(admin: SessionUser, body: InvitationCreate): Promise<number> {
   const { appUrl, invitationMaxAgeS } = useRuntimeConfig()
   const token = randomBytes(32).toString('base64url')
   const expiresAt = new Date(Date.now() + invitationMaxAgeS * 1000)
   return writeTransaction(async (trx) => {
-    if (await trx('users').where({ email: body.email }).first('id')) {
-      throw createError({ statusCode: 409, statusMessage: 'Already a member', message: 'email: someone with this address already has an account' })
+    const existing = await trx('users').where({ email: body.email }).first('id', 'team_id')
+    if (existing && existing.team_id === admin.teamId) {
+      throw createError({ statusCode: 409, statusMessage: 'Already a member', message: 'email: this address is already a member of your team' })
     }
     const [id] = await trx('invitations').insert({
       team_id: admin.teamId, email: body.email, display_name: body.name, role: body.role,
       token_hash: hashToken(token), expires_at: expiresAt, invited_by: admin.id
     })
-    const mail = invitationMail({ teamName: admin.teamName, inviterName: admin.name, inviteeName: body.name, role: ROLE_WORDS[body.role], url: `${appUrl.replace(/\/$/, '')}/invite/${token}`, expiresAt })
+    const about = { teamName: admin.teamName, inviterName: admin.name, inviteeName: body.name, role: ROLE_WORDS[body.role] }
+    const mail = existing
+      ? invitationForExistingAccountMail(about)
+      : invitationMail({ ...about, url: `${appUrl.replace(/\/$/, '')}/invite/${token}`, expiresAt })
     await queueMail(trx, { ...mail, teamId: admin.teamId, to: body.email, template: 'invitation' })
     await writeAudit({ teamId: admin.teamId, actorId: admin.id, action: 'member_invited', targetType: 'invitation', targetId: id!, detail: { email: body.email, role: body.role } }, trx)
     return id!

@@ -21,6 +21,14 @@ function useTransport(): Transporter {
   return transport
 }
 
+/**
+ * The Message-ID a queued message is sent with: it names the outbox row, so whatever shows caught
+ * mail in the app can tell whose team a message belongs to (server/utils/caughtMail.ts).
+ */
+export function outboxMessageId(id: number): string {
+  return `<outbox-${id}@rungwise.invalid>`
+}
+
 /** Queues a message in the caller's transaction, so it exists exactly when the action does. */
 export async function queueMail(trx: Knex.Transaction, message: MailContent & { teamId: number | null, to: string, template: string }): Promise<void> {
   await trx('mail_outbox').insert({
@@ -49,7 +57,7 @@ export async function deliverDueMail(limit = 20): Promise<number> {
   let sent = 0
   for (const row of await claimDue(limit)) {
     try {
-      await useTransport().sendMail({ from: mailFrom, to: row.to_address, subject: row.subject, text: row.text_body, html: row.html_body })
+      await useTransport().sendMail({ messageId: outboxMessageId(row.id), from: mailFrom, to: row.to_address, subject: row.subject, text: row.text_body, html: row.html_body })
       await useDb()('mail_outbox').where({ id: row.id }).update({ status: 'sent', sent_at: new Date(), attempts: row.attempts + 1, last_error: null })
       sent += 1
     } catch (error) {

@@ -1,25 +1,37 @@
-/** Failed sign-ins allowed per window: per account and per client address. Shared through MariaDB. */
-export const SIGN_IN_LIMITS = { windowS: 15 * 60, perAccount: 5, perAddress: 20 }
+import { emailLockoutKey } from '#shared/utils/email'
+
+/**
+ * Failed sign-ins allowed per window, shared through MariaDB: per account (every spelling of an
+ * address counts under its lockout key), and per client address as the number of DISTINCT
+ * accounts it failed on, so many people behind one proxy who each mistype their own password do
+ * not lock each other out, while spraying one password over many accounts still stops.
+ */
+export const SIGN_IN_LIMITS = { windowS: 15 * 60, perAccount: 5, accountsPerAddress: 20 }
 
 function windowStart(): Date {
   return new Date(Date.now() - SIGN_IN_LIMITS.windowS * 1000)
 }
 
-/** True when either the account or the address has used up its failed attempts. */
+const accountKey = (email: string) => `account:${emailLockoutKey(email)}`
+const addressKey = (ip: string) => `address:${ip}`
+
+/** True when the account has used up its failed attempts, or the address has failed on too many accounts. */
 export async function signInBlocked(email: string, ip: string): Promise<boolean> {
-  const rows: { scope_key: string, n: number }[] = await useDb()('sign_in_attempts')
-    .whereIn('scope_key', [`account:${email}`, `address:${ip}`]).where('attempted_at', '>', windowStart())
-    .groupBy('scope_key').select('scope_key').count({ n: '*' })
-  const count = (key: string) => Number(rows.find(r => r.scope_key === key)?.n ?? 0)
-  return count(`account:${email}`) >= SIGN_IN_LIMITS.perAccount || count(`address:${ip}`) >= SIGN_IN_LIMITS.perAddress
+  const db = useDb()
+  const [account, address] = await Promise.all([
+    db('sign_in_attempts').where({ scope_key: accountKey(email) }).where('attempted_at', '>', windowStart()).count({ n: '*' }),
+    db('sign_in_attempts').where({ scope_key: addressKey(ip) }).where('attempted_at', '>', windowStart()).countDistinct({ n: 'account_key' })
+  ])
+  return Number(account[0]?.n ?? 0) >= SIGN_IN_LIMITS.perAccount || Number(address[0]?.n ?? 0) >= SIGN_IN_LIMITS.accountsPerAddress
 }
 
-/** Records one failed attempt against both keys, in one statement. */
+/** Records one failed attempt against the account and the address, in one statement. */
 export async function recordFailedSignIn(email: string, ip: string): Promise<void> {
-  await useDb()('sign_in_attempts').insert([{ scope_key: `account:${email}` }, { scope_key: `address:${ip}` }])
+  const account = accountKey(email)
+  await useDb()('sign_in_attempts').insert([{ scope_key: account }, { scope_key: addressKey(ip), account_key: account }])
 }
 
 /** A successful sign-in clears the account's failures (not the address's). */
 export async function clearAccountFailures(email: string): Promise<void> {
-  await useDb()('sign_in_attempts').where({ scope_key: `account:${email}` }).delete()
+  await useDb()('sign_in_attempts').where({ scope_key: accountKey(email) }).delete()
 }

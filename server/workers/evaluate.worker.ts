@@ -17,6 +17,7 @@ import type { EvaluateOutputWithFindings } from '../../shared/findings/index'
 import { applyFindings } from '../../shared/findings/index'
 import type { RulePack } from '../../shared/findings/schema'
 import { encodeEvaluationOutput, type OutputForm } from '../utils/evaluationResult'
+import { runHeavyTask, type HeavyTask } from '../utils/heavyTasks'
 
 try {
   setPriority(10)
@@ -55,7 +56,8 @@ export interface NetlistTask {
 }
 
 /** Runs one evaluation task (pure, synchronous), the finishing step or a netlist export. */
-export default async function run(task: EvaluationTask | JsonTask | FinishTask | NetlistTask): Promise<EvaluationPart | string | Buffer | EvaluateOutputWithFindings> {
+export default async function run(task: EvaluationTask | JsonTask | FinishTask | NetlistTask | HeavyTask): Promise<EvaluationPart | string | Buffer | EvaluateOutputWithFindings | ReturnType<typeof runHeavyTask>> {
+  if (task.kind === 'solve' || task.kind === 'netlist-file' || task.kind === 'nominal') return runHeavyTask(task)
   if (task.kind === 'netlist') return JSON.stringify(exportNetlist(task.input))
   if (task.kind === 'json') return JSON.stringify(runEvaluationTask(task.task))
   if (task.kind === 'finish') {

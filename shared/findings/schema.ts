@@ -59,6 +59,32 @@ const topLevel = z.union([
   z.strictObject({ any: z.array(nested).min(1, 'must list at least one condition').max(20) })
 ], { error: 'must be { all: [...] } or { any: [...] }' })
 
+/** Deepest nesting of all / any / not a rule may use (the top-level all or any is level 1). */
+export const MAX_CONDITION_DEPTH = 8
+
+/**
+ * The nesting depth of a conditions tree, measured without recursion (before the recursive schema
+ * runs: thousands of `not` levels overflowed the stack, and 28 passed the database's JSON depth).
+ */
+function conditionDepth(value: unknown): number {
+  let deepest = 0
+  const stack: [unknown, number][] = [[value, 1]]
+  while (stack.length) {
+    const [node, depth] = stack.pop()!
+    if (!node || typeof node !== 'object') continue
+    deepest = Math.max(deepest, depth)
+    if (deepest > MAX_CONDITION_DEPTH) return deepest
+    const o = node as Record<string, unknown>
+    for (const list of [o.all, o.any]) if (Array.isArray(list)) list.forEach(c => stack.push([c, depth + 1]))
+    if ('not' in o) stack.push([o.not, depth + 1])
+  }
+  return deepest
+}
+
+const boundedConditions = z.unknown().superRefine((v, ctx) => {
+  if (conditionDepth(v) > MAX_CONDITION_DEPTH) ctx.addIssue({ code: 'custom', message: `must nest all, any and not at most ${MAX_CONDITION_DEPTH} levels deep` })
+}).pipe(topLevel)
+
 export const ruleSchema = z.strictObject({
   id: kebab('rule id'),
   severity: z.enum(SEVERITIES, { error: 'must be one of fail, warn, advice, note' }),
@@ -77,7 +103,7 @@ export const ruleSchema = z.strictObject({
     source: z.enum(THRESHOLD_SOURCES, { error: `must be one of ${THRESHOLD_SOURCES.join(', ')}` }),
     note: text(300)
   }),
-  conditions: topLevel
+  conditions: boundedConditions
 })
 
 export const rulePackDocumentSchema = z.strictObject({

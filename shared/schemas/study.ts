@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { evaluateSpecSchema, type EvaluateSpec } from '../core/contract/evaluate'
+import { canonicalEmail } from '../utils/email'
 
 /** A finite number in [min, max]; every failure message states the allowed range. */
 export function rangedNumber(min: number, max: number, unit = '') {
@@ -39,7 +40,7 @@ export const studyListQuerySchema = z.object({
 export const idParamSchema = z.object({ id: rangedInteger(1, 2 ** 31 - 1, true) })
 
 export const signInSchema = z.object({
-  email: z.string().trim().toLowerCase().max(254),
+  email: z.string().max(1000).transform(canonicalEmail).pipe(z.string().max(254)),
   password: z.string().max(200)
 })
 

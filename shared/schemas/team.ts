@@ -1,10 +1,12 @@
 import { z } from 'zod'
 import { ROLES } from '../types/auth'
+import { canonicalEmail } from '../utils/email'
 
 export const PASSWORD_MIN_LENGTH = 12
 
 export const invitationCreateSchema = z.strictObject({
-  email: z.string({ error: 'must be an e-mail address' }).trim().toLowerCase().max(254, { error: 'must be at most 254 characters' })
+  email: z.string({ error: 'must be an e-mail address' }).max(1000, { error: 'must be at most 254 characters' }).transform(canonicalEmail)
+    .pipe(z.string().max(254, { error: 'must be at most 254 characters' }))
     .pipe(z.email({ error: 'must be an e-mail address' })),
   name: z.string({ error: 'is required, 1 to 120 characters' }).trim().min(1, { error: 'is required, 1 to 120 characters' }).max(120, { error: 'is required, 1 to 120 characters' }),
   role: z.enum(ROLES, { error: `must be one of ${ROLES.join(', ')}` })

@@ -4,4 +4,4 @@ export interface TeamMemberDto { id: number, name: string, email: string, role: 
 export interface PendingInvitationDto { id: number, name: string, email: string, role: Role, expiresAt: string, invitedBy: string | null }
 export interface TeamDto { members: TeamMemberDto[], invitations: PendingInvitationDto[] }
 export interface InvitationPreviewDto { email: string, name: string, role: Role, teamName: string, expiresAt: string }
-export interface CaughtMailDto { id: string, receivedAt: string, from: string, to: string[], subject: string, text: string, html: string }
+export interface CaughtMailDto { id: string, messageId: string, receivedAt: string, from: string, to: string[], subject: string, text: string, html: string }

@@ -48,7 +48,7 @@ export const LIBRARY_ROWS: MatrixRow[] = [
   {
     route: 'POST /api/studies/:id/revisions',
     // the study belongs to the demo architect: engineers edit only their own studies (issue 6, roles)
-    expect: { signedOut: 401, admin: 201, architect: 201, engineer: 403, manager: 403, otherTeam: 404 },
+    expect: { signedOut: 401, admin: 201, architect: 201, engineer: 403, manager: 403, otherTeam: 404, otherEngineer: 404 },
     request: async f => ({ path: `/api/studies/${f.ownStudyId}/revisions`, body: await revisionBody(f) })
   },
   { route: 'GET /api/studies/:id/revisions/:n', expect: READ_OWN, request: f => ({ path: `/api/studies/${f.ownStudyId}/revisions/1` }) },

@@ -1,11 +1,11 @@
 import { readdirSync, statSync } from 'node:fs'
 import { join, relative } from 'node:path'
-import bcrypt from 'bcryptjs'
 import type { Knex } from 'knex'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { testDb } from '../support/db'
 import { api, DEMO, signIn } from '../support/http'
-import { AUTHORIZATION_MATRIX, type Fixtures, type Who } from './authorization-table'
+import { createTeam } from '../support/teams'
+import { AUTHORIZATION_MATRIX, expectedFor, OTHER_ROLES, type Fixtures, type MatrixRow, type OtherRole, type Who } from './authorization-table'
 
 /**
  * Every API route against every kind of caller, from the one table in authorization-table.ts.
@@ -36,10 +36,12 @@ const fixtures = {} as Fixtures
 beforeAll(async () => {
   db = testDb()
   for (const role of ['admin', 'architect', 'engineer', 'manager'] as const) cookies[role] = await signIn(DEMO[role])
-  const [teamId] = await db('teams').insert({ name: 'Matrix Other Team', slug: `matrix-${Date.now()}` })
-  const email = `matrix-${Date.now()}@other.example`
-  const [userId] = await db('users').insert({ team_id: teamId, email, display_name: 'Other', password_hash: await bcrypt.hash('matrix-other-pass', 4), role: 'admin' })
-  cookies.otherTeam = await signIn(email, 'matrix-other-pass')
+  // the second team: every role, so each row is tried by another team's admin, architect, engineer and manager
+  const other = await createTeam(db, 'matrix')
+  const teamId = other.id
+  const userId = other.users.admin.id
+  cookies.otherTeam = await signIn(other.users.admin.email, other.password)
+  for (const [who, role] of Object.entries(OTHER_ROLES) as [OtherRole, 'architect' | 'engineer' | 'manager'][]) cookies[who] = await signIn(other.users[role].email, other.password)
   const demoTeam = await db('teams').where({ slug: 'harrow-lake' }).first('id')
   const own = await db('studies').where({ team_id: demoTeam.id }).first('id')
   const ids = await db('studies').insert({ team_id: teamId, owner_id: userId, title: 'Matrix other-team study', spec: JSON.stringify({ bits: 8 }) })
@@ -62,8 +64,22 @@ describe('authorization matrix', () => {
     expect(new Set(inTable).size).toBe(inTable.length)
   })
 
+  /** The row's own expectations plus the second team's architect, engineer and manager. */
+  const expectations = (row: MatrixRow): [Who, number][] => {
+    const listed = Object.entries(row.expect) as [Who, number][]
+    const others = (Object.keys(OTHER_ROLES) as OtherRole[]).filter(w => row.expect[w] === undefined)
+      .map(w => [w, expectedFor(row, w)] as [Who, number | undefined]).filter((e): e is [Who, number] => e[1] !== undefined)
+    return [...listed, ...others]
+  }
+
+  it('tries every signed-in row with every role of a second team', () => {
+    const signedIn = AUTHORIZATION_MATRIX.filter(r => r.expect.admin !== undefined)
+    const missing = signedIn.filter(r => expectations(r).filter(([w]) => w.startsWith('other')).length !== 4).map(r => r.route)
+    expect(missing, 'rows without all four roles of the second team').toEqual([])
+  })
+
   for (const row of AUTHORIZATION_MATRIX) {
-    for (const [who, expected] of Object.entries(row.expect) as [Who, number][]) {
+    for (const [who, expected] of expectations(row)) {
       it(`${row.route} as ${who} → ${expected}`, async () => {
         const [method, pattern] = row.route.split(' ') as [string, string]
         const request = await row.request(fixtures, who)

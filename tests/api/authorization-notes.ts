@@ -32,7 +32,8 @@ function csvForm(): FormData {
 }
 
 const TEAM = { signedOut: 401, admin: 200, architect: 200, engineer: 200, manager: 200, otherTeam: 404 }
-const AUTHOR_OR_ADMIN = { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404 }
+// another team's members get 404 (the note is not theirs to see) before any author check
+const AUTHOR_OR_ADMIN = { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404, otherArchitect: 404, otherManager: 404 }
 
 export const NOTE_ROWS: MatrixRow[] = [
   { route: 'GET /api/studies/:id/notes', expect: TEAM, request: f => ({ path: `/api/studies/${f.ownStudyId}/notes` }) },
@@ -44,14 +45,14 @@ export const NOTE_ROWS: MatrixRow[] = [
   { route: 'PATCH /api/notes/:id', expect: AUTHOR_OR_ADMIN, request: async f => ({ path: `/api/notes/${await engineerNote(f)}`, body: { version: 1, body: 'Edited in the matrix' } }) },
   {
     route: 'DELETE /api/notes/:id',
-    expect: { signedOut: 401, admin: 204, architect: 403, engineer: 204, manager: 403, otherTeam: 404 },
+    expect: { signedOut: 401, admin: 204, architect: 403, engineer: 204, manager: 403, otherTeam: 404, otherArchitect: 404, otherManager: 404 },
     request: async f => ({ path: `/api/notes/${await engineerNote(f)}` })
   },
   { route: 'POST /api/notes/:id/resolve', expect: TEAM, request: async f => ({ path: `/api/notes/${await engineerNote(f)}/resolve` }) },
   { route: 'POST /api/notes/:id/reopen', expect: TEAM, request: async f => ({ path: `/api/notes/${await engineerNote(f, true)}/reopen` }) },
   {
     route: 'POST /api/notes/:id/attachments',
-    expect: { signedOut: 401, admin: 201, architect: 403, engineer: 201, manager: 403, otherTeam: 404 },
+    expect: { signedOut: 401, admin: 201, architect: 403, engineer: 201, manager: 403, otherTeam: 404, otherArchitect: 404, otherManager: 404 },
     request: async f => ({ path: `/api/notes/${await engineerNote(f)}/attachments`, body: csvForm() })
   },
   { route: 'GET /api/attachments/:id', expect: TEAM, request: async f => ({ path: `/api/attachments/${await engineerAttachment(f)}` }) }

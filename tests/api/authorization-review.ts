@@ -43,7 +43,7 @@ export const REVIEW_ROWS: MatrixRow[] = [
   {
     // Only the named architect reviews; the role is checked before the team.
     route: 'POST /api/studies/:id/reviews',
-    expect: { signedOut: 401, admin: 403, architect: 201, engineer: 403, manager: 403, otherTeam: 403 },
+    expect: { signedOut: 401, admin: 403, architect: 201, engineer: 403, manager: 403, otherTeam: 403, otherArchitect: 404 },
     request: async (f) => {
       const { id } = await studyIn(f, 'in_review')
       return { path: `/api/studies/${id}/reviews`, body: { statusVersion: 0, verdict: 'signed_off' } }

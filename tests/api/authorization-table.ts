@@ -5,8 +5,26 @@ import { NOTE_ROWS } from './authorization-notes'
 import { REVIEW_ROWS } from './authorization-review'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
 
-/** Kinds of caller: no session, each role of the demo team, and an admin of another team. */
-export type Who = 'signedOut' | 'admin' | 'architect' | 'engineer' | 'manager' | 'otherTeam'
+/**
+ * Kinds of caller: no session, each role of the demo team, and each role of a second team
+ * ('otherTeam' is its admin). A row names what it must (signedOut, the demo roles, otherTeam); the
+ * second team's architect, engineer and manager get `expectedFor` unless the row names them too.
+ */
+export type Who = 'signedOut' | 'admin' | 'architect' | 'engineer' | 'manager' | 'otherTeam' | OtherRole
+export type OtherRole = 'otherArchitect' | 'otherEngineer' | 'otherManager'
+export const OTHER_ROLES: Record<OtherRole, 'architect' | 'engineer' | 'manager'> = { otherArchitect: 'architect', otherEngineer: 'engineer', otherManager: 'manager' }
+
+/**
+ * Another team's member: refused by role (403) where the same role of the demo team is, since the
+ * role check comes first; otherwise whatever the other team's admin gets (404 for the demo team's
+ * records, or their own team's answer).
+ */
+export function expectedFor(row: MatrixRow, who: OtherRole): number | undefined {
+  if (row.expect[who] !== undefined) return row.expect[who]
+  const own = row.expect[OTHER_ROLES[who]]
+  if (own === undefined || row.expect.otherTeam === undefined) return undefined
+  return own === 403 ? 403 : row.expect.otherTeam
+}
 
 export interface Fixtures {
   db: Knex
@@ -72,7 +90,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   },
   {
     route: 'DELETE /api/evaluations/:id',
-    expect: { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404 },
+    expect: { signedOut: 401, admin: 200, architect: 403, engineer: 200, manager: 403, otherTeam: 404, otherArchitect: 404, otherManager: 404 },
     request: async f => ({ path: `/api/evaluations/${await ownJob(f)}` })
   },
   ...RULE_PACK_ROWS,

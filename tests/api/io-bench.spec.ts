@@ -68,6 +68,18 @@ describe('bench data upload', () => {
     expect(await db('audit_log').where({ action: 'bench_uploaded', target_id: String(id) })).toHaveLength(1)
   })
 
+  // Issue 13, finding 6: decided studies are read-only except notes, and bench data was accepted.
+  it.each(['decided', 'archived'])('refuses an upload to a %s study with 423 and stores nothing', async (status) => {
+    const id = await study(2)
+    await db('studies').where({ id }).update({ status })
+    const before = await benchCount()
+    const res = await upload<{ message: string }>(id, 'r2r-voltage', 'code,voltage\n0,0\n1,1\n2,2\n3,3\n')
+    expect(res.status).toBe(423)
+    expect(res.body.message).toContain('read-only')
+    expect(await benchCount()).toBe(before)
+    expect((await api(`/api/studies/${id}/bench`, { cookie: manager })).status).toBe(200)
+  })
+
   it('refuses a manager and another team', async () => {
     const id = await study(2)
     const text = 'code,voltage\n0,0\n1,1\n2,2\n3,3\n'
@@ -124,5 +136,12 @@ describe('netlist download run in ngspice, measured INL/DNL against the engine',
     const res = await api<{ message: string }>(`/api/studies/${big}/netlist?candidate=string-direct`, { cookie: engineer })
     expect(res.status).toBe(413)
     expect(res.body.message).toMatch(/above the 16 MB download limit/)
-  })
+    // refused before building: 2^16 codes × at least 500 B (measured 546–608 B per code, 8–14 bits)
+    expect(res.body.message).toMatch(/at least 31\.3 MB/)
+    // 15 bits: the lower bound (15.6 MB) is under the limit, so it is built on the pool and refused there
+    const mid = await study(15, { topologies: ['string'], trials: 0 })
+    const built = await api<{ message: string }>(`/api/studies/${mid}/netlist?candidate=string-direct`, { cookie: engineer })
+    expect(built.status).toBe(413)
+    expect(built.body.message).not.toMatch(/at least/)
+  }, 120_000)
 })

@@ -94,6 +94,24 @@ describe('team rule packs', () => {
     expect((await api('/api/rule-packs', { method: 'POST', cookie: admin, body: '{"pack":' })).status).toBe(400)
   })
 
+  // Issue 13, finding 9: 28 nested `not` levels tripped the database's JSON depth check and about
+  // 700 overflowed validation, both 500s. Depths from 9 (just past the bound) to 1,500.
+  it.each([9, 28, 700, 1500])('refuses conditions nested %i levels deep with 400 naming the field, and writes nothing', async (depth) => {
+    const before = await counts()
+    const deep = matrixPack(`deep-${depth}`)
+    const leaf = deep.rules[0]!.conditions.all[0]!
+    let condition: unknown = leaf
+    for (let i = 1; i < depth; i++) condition = { not: condition }
+    const body = { pack: { ...deep, rules: [{ ...deep.rules[0]!, conditions: { all: [condition] } }] } }
+    for (const route of ['/api/rule-packs', '/api/rule-packs/dry-run']) {
+      const res = await api<{ message: string }>(route, { method: 'POST', cookie: admin, body })
+      expect(res.status, route).toBe(400)
+      expect(res.body.message).toContain('pack.rules[0].conditions')
+      expect(res.body.message).toContain('at most 8 levels')
+    }
+    expect(await counts()).toEqual(before)
+  })
+
   it('dry-runs a draft against the sample study and says which rules fire where', async () => {
     const res = await api<{ fired: Record<string, string[]>, candidateCount: number, sample: string }>('/api/rule-packs/dry-run', { method: 'POST', cookie: admin, body: { pack: matrixPack('dry') } })
     expect(res.status).toBe(200)

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { testDb } from '../support/db'
 import { api, DEMO, signIn } from '../support/http'
 import { startCatcherProcess, stopCatcher, waitForMail } from '../support/mail-catcher'
+import { createTeam } from '../support/teams'
 
 let db: Knex
 let admin: string
@@ -60,6 +61,21 @@ describe('invitations', () => {
     expect(bad.body.message).toContain('email')
   })
 
+  // Issue 13, finding 8: inviting an address with an account in another team answered 409
+  // "already has an account", telling the admin who uses Rungwise elsewhere.
+  it('answers an address of another team exactly as a new one, and mails its owner what to do instead of a link', async () => {
+    const other = await createTeam(db, 'invitereveal')
+    const fresh = await api<{ id: number }>('/api/team/invitations', { method: 'POST', cookie: admin, body: { email: unique('fresh'), name: 'Fresh', role: 'engineer' } })
+    const taken = await api<{ id: number }>('/api/team/invitations', { method: 'POST', cookie: admin, body: { email: other.users.engineer.email.toUpperCase(), name: 'Taken', role: 'engineer' } })
+    expect(taken.status).toBe(fresh.status)
+    expect(Object.keys(taken.body)).toEqual(Object.keys(fresh.body))
+    const mail = await waitForMail(inject('mailDir'), other.users.engineer.email)
+    expect(tokenFrom(mail.text)).toBe('')
+    expect(mail.text).toContain('already has a Rungwise account in another team')
+    // the account stays where it is
+    expect((await db('users').where({ id: other.users.engineer.id }).first('team_id')).team_id).toBe(other.id)
+  })
+
   it('keeps the invitation when the mail service is down and delivers the mail once it is back', async () => {
     const dir = inject('mailDir')
     const port = inject('mailPort')
@@ -93,6 +109,27 @@ describe('invitations', () => {
     expect(list.status).toBe(200)
     expect(list.body.length).toBeGreaterThan(0)
     expect((await api('/api/admin/mail', { cookie: await signIn(DEMO.engineer) })).status).toBe(403)
+  })
+
+  // Issue 13, finding 1: the list showed every team's mail with live invitation links, so another
+  // team's admin could accept one and join this team as admin.
+  it('shows an admin only their own team\'s caught mail, and never an invitation token', async () => {
+    const email = unique('scoped')
+    expect((await api('/api/team/invitations', { method: 'POST', cookie: admin, body: { email, name: 'Scoped Invitee', role: 'admin' } })).status).toBe(201)
+    const token = tokenFrom((await waitForMail(inject('mailDir'), email)).text)
+    expect(token.length).toBeGreaterThan(20)
+    const other = await createTeam(db, 'mailscope')
+    const otherAdmin = await signIn(other.users.admin.email, other.password)
+    const theirs = await api<{ to: string[], text: string, html: string }[]>('/api/admin/mail', { cookie: otherAdmin })
+    expect(theirs.status).toBe(200)
+    expect(theirs.body.filter(m => m.to.includes(email))).toEqual([])
+    expect(JSON.stringify(theirs.body)).not.toContain(token)
+    const ours = await api<{ to: string[], text: string, html: string }[]>('/api/admin/mail', { cookie: admin })
+    const invitation = ours.body.find(m => m.to.includes(email))!
+    expect(invitation.text).toContain('/invite/')
+    expect(JSON.stringify(ours.body)).not.toContain(token)
+    // no other team's address appears in the demo team's list either
+    expect(ours.body.flatMap(m => m.to).filter(t => t.endsWith('@mailscope.example'))).toEqual([])
   })
 
   it('lists team members for everyone and open invitations only for admins', async () => {

@@ -20,7 +20,7 @@ export default defineApiHandler(async (event) => {
     'content-disposition': contentDisposition(inline ? 'inline' : 'attachment', row.filename),
     'x-content-type-options': 'nosniff',
     'content-security-policy': 'default-src \'none\'; sandbox',
-    'cache-control': 'private, no-cache',
+    'cache-control': 'no-store',
     'etag': `"${row.sha256}"`
   })
   return row.data as Buffer

@@ -9,7 +9,7 @@ export default defineApiHandler(async (event) => {
   const fail = () => createError({ statusCode: 401, statusMessage: MESSAGES.signInFailed, data: { message: MESSAGES.signInFailed } })
   if (!parsed.success || !parsed.data.email || !parsed.data.password) throw fail()
   const { email, password } = parsed.data
-  const ip = getRequestIP(event, { xForwardedFor: false }) ?? 'unknown'
+  const ip = clientAddress(event)
   if (await signInBlocked(email, ip)) {
     await writeAudit({ teamId: null, actorId: null, action: 'sign_in_blocked', targetType: 'user', targetId: null, detail: { email, ip } })
     throw createError({ statusCode: 429, statusMessage: MESSAGES.signInRateLimited, data: { message: MESSAGES.signInRateLimited } })

@@ -1,6 +1,4 @@
 import { netlistSpecInputSchema } from '#shared/core/contract/netlist'
-import { candidateCircuit } from '#shared/core/netlist/candidate'
-import { solveCircuitArrays } from '#shared/core/solve/index'
 import { benchSummary } from '#shared/io/benchCsv'
 import { inlBuckets } from '#shared/io/benchCompare'
 import { netlistCandidateOf } from '#shared/io/candidateId'
@@ -23,8 +21,10 @@ export default defineApiHandler(async (event): Promise<BenchComparisonDto> => {
   const definition = revision.options.inlDefinition
   const points = mc?.envelope?.codes.length ?? revision.options.envelopePoints
   const candidate = netlistCandidateOf(dto.candidateId, dto.bits)!
-  const circuit = candidateCircuit(netlistSpecInputSchema.parse({ spec: revision.spec, process: revision.process, candidate, sample: null })).circuit
-  const nominal = Array.from(solveCircuitArrays(circuit).value)
+  // The nominal transfer is an exact solve of 2^N codes: on the worker pool, under the user's heavy slot.
+  const nominalInput = netlistSpecInputSchema.parse({ spec: revision.spec, process: revision.process, candidate, sample: null })
+  const signal = clientGone(event)
+  const nominal = await withHeavySlot(user, 'bench', () => nominalLevelsInPool(nominalInput, signal))
   return {
     ...dto,
     definition,

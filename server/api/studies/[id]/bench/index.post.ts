@@ -6,7 +6,7 @@ import { STUDY_EDITOR_ROLES } from '#shared/types/auth'
 import type { BenchMeasurementDto } from '#shared/types/bench'
 
 /**
- * Stores a measured transfer for a candidate of the current revision, with its INL/DNL, only when
+ * Stores a measured transfer (423 on a decided or archived study, like every other edit) for a candidate of the current revision, with its INL/DNL, only when
  * the whole file is valid; otherwise a 400 on field `text` listing the bad lines (`data.lines`) and nothing stored.
  */
 export default defineApiHandler(async (event): Promise<BenchMeasurementDto> => {
@@ -14,7 +14,9 @@ export default defineApiHandler(async (event): Promise<BenchMeasurementDto> => {
   const { id } = paramsAs(event, idParamSchema)
   const body = await readBodyAs(event, benchBodySchema)
   const db = useDb()
-  const { head } = await studyWithHead(db, user.teamId, id)
+  const { study, head } = await studyWithHead(db, user.teamId, id)
+  // Decided and archived studies are read-only except notes (DEVELOPERS.md, Status flow): bench data too.
+  assertEditable(study.status)
   if (!head) throw studyNotReady('the study has no saved revision yet; save revision 1, then compare measurements with it')
   const bits = head.spec.bits
   if (!netlistCandidateOf(body.candidateId, bits)) {
@@ -31,7 +33,7 @@ export default defineApiHandler(async (event): Promise<BenchMeasurementDto> => {
   }
   const summary = benchSummary(parsed.value.levels)
   const benchId = await db.transaction(async (trx) => {
-    await teamStudyRow(trx, user.teamId, id, true)
+    assertEditable((await teamStudyRow(trx, user.teamId, id, true)).status)
     const [newId] = await trx('bench_measurements').insert({
       team_id: user.teamId, study_id: id, candidate_id: body.candidateId, revision_number: head.number, uploaded_by: user.id,
       file_name: body.fileName, quantity: parsed.value.quantity, bits, points: JSON.stringify(parsed.value.levels), summary: JSON.stringify(summary)

@@ -37,7 +37,7 @@ export default defineApiHandler(async (event) => {
     throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: q.seed === undefined ? 'seed' : 'index', message }] } })
   }
   const sample = q.seed === undefined ? null : { seed: q.seed, index: q.index! }
-  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, candidate, sample, note: `study ${study.id} revision ${head.number}` })
+  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, options: head.options, candidate, sample, note: `study ${study.id} revision ${head.number}` })
   // Refused before anything is built when even the lower bound is over the limit (a 16-bit string);
   // otherwise built on the worker pool under the user's heavy slot, and a file over the limit is
   // refused there, its text never reaching this thread.

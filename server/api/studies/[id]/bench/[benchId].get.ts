@@ -22,7 +22,7 @@ export default defineApiHandler(async (event): Promise<BenchComparisonDto> => {
   const points = mc?.envelope?.codes.length ?? revision.options.envelopePoints
   const candidate = netlistCandidateOf(dto.candidateId, dto.bits)!
   // The nominal transfer is an exact solve of 2^N codes: on the worker pool, under the user's heavy slot.
-  const nominalInput = netlistSpecInputSchema.parse({ spec: revision.spec, process: revision.process, candidate, sample: null })
+  const nominalInput = netlistSpecInputSchema.parse({ spec: revision.spec, process: revision.process, options: revision.options, candidate, sample: null })
   const signal = clientGone(event)
   const nominal = await withHeavySlot(user, 'bench', () => nominalLevelsInPool(nominalInput, signal))
   return {

@@ -37,6 +37,8 @@ export default defineNuxtConfig({
     invitationMaxAgeS: 7 * 24 * 60 * 60,
     // Synchronous evaluations, netlists and dry runs one user may have running at once (429 beyond).
     heavyRequestsPerUser: 2,
+    // Requests one API token may make per minute, across instances (429 beyond).
+    apiTokenRequestsPerMinute: 300,
     public: {
       // true when a local SMTP catcher is configured (NUXT_PUBLIC_MAIL_CATCHER)
       mailCatcher: false

@@ -106,5 +106,6 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   { route: 'GET /api/admin/mail', expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 200 }, request: () => ({}) },
   { route: 'GET /api/portfolio', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
   { route: 'GET /api/portfolio/export', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
-  ...TOKEN_ROWS
+  ...TOKEN_ROWS,
+  { route: 'GET /api/openapi.json', expect: { signedOut: 200 }, request: () => ({}) }
 ]

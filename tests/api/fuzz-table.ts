@@ -89,6 +89,7 @@ const PORTFOLIO_QUERY = { page: '1', pageSize: '25', status: 'all', q: 'demo', s
 
 export const FUZZ_TABLE: FuzzRow[] = [
   { route: 'GET /api/health', as: 'signedOut', sample: () => ({}), tables: [] },
+  { route: 'GET /api/openapi.json', accepts: 200, as: 'signedOut', sample: () => ({}), tables: [], weight: 0.25 },
   { route: 'POST /api/auth/login', as: 'signedOut', sample: () => ({ body: { email: 'fuzz@nowhere.example', password: 'not-the-password' } }), tables: ['sessions', 'users'] },
   { route: 'POST /api/auth/logout', as: 'signedOut', sample: () => ({ body: {} }), tables: ['users'] },
   { route: 'GET /api/auth/session', as: 'adminToken', sample: () => ({}), tables: [] },

@@ -71,7 +71,7 @@ afterAll(async () => {
 
 describe('CLI against a server', () => {
   it('solve, evaluate and netlist print the same JSON as the local engine', async () => {
-    for (const [command, doc] of [['solve', LADDER], ['netlist', { circuit: LADDER }], ['evaluate', INPUTS]] as const) {
+    for (const [command, doc] of [['solve', LADDER], ['netlist', { circuit: LADDER }], ['netlist', { circuit: LADDER, deck: 'portable' }], ['evaluate', INPUTS]] as const) {
       const remote = await cli([command, 'in.json'], { token: tokens.all, files: { 'in.json': doc } })
       expect(remote.code, remote.err).toBe(0)
       const local = await cli([command, 'in.json'], { files: { 'in.json': doc }, server: null })

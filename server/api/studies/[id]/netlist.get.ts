@@ -27,13 +27,13 @@ export default defineApiHandler(async (event) => {
     throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: q.seed === undefined ? 'seed' : 'index', message }] } })
   }
   const sample = q.seed === undefined ? null : { seed: q.seed, index: q.index! }
-  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, candidate, sample, note: `study ${study.id} revision ${head.number}` })
+  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, candidate, sample, note: `study ${study.id} revision ${head.number}`, deck: q.deck })
   const out = exportNetlist(input)
   const bytes = Buffer.byteLength(out.netlist)
   if (bytes > MAX_NETLIST_BYTES) {
     const message = `the netlist of ${q.candidate} at ${head.spec.bits} bits is ${(bytes / 2 ** 20).toFixed(1)} MB, above the ${MAX_NETLIST_BYTES / 2 ** 20} MB download limit; the command line writes it: npm run cli -- netlist`
     throw createError({ statusCode: 413, statusMessage: 'Netlist too large', message, data: { message } })
   }
-  sendAttachment(event, 'text/plain; charset=utf-8', `${study.title}-${q.candidate}-${sample ? `seed${sample.seed}-index${sample.index}` : 'nominal'}.cir`)
+  sendAttachment(event, 'text/plain; charset=utf-8', `${study.title}-${q.candidate}-${sample ? `seed${sample.seed}-index${sample.index}` : 'nominal'}${q.deck === 'portable' ? '-portable' : ''}.cir`)
   return out.netlist
 })

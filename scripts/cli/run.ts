@@ -1,5 +1,4 @@
 import { CliError, EXIT, type CliIo } from './io'
-import { LOCAL_COMMANDS, runLocal } from './local'
 import { remoteEngine, serverBase, studyList, studyResults, studySave, type Remote } from './remote'
 
 export const USAGE = `usage: npm run --silent cli -- <command> <file.json|-> [--pretty]
@@ -18,6 +17,9 @@ studies (with --server only):
                            --evaluate runs an evaluation job first and saves its results
 '-' reads the JSON document from stdin. --server (or RUNGWISE_SERVER) names the server; the API
 token comes from RUNGWISE_TOKEN. Exit codes: 0 ok, 2 bad input, 3 refused, 4 unreachable, 1 other.`
+
+/** The engine commands; the engine itself is loaded only to run one here (remote runs and usage errors start faster). */
+const ENGINE_COMMANDS = ['solve', 'evaluate', 'netlist']
 
 interface Parsed {
   args: string[]
@@ -64,13 +66,14 @@ async function dispatch(argv: string[], io: CliIo): Promise<number> {
   if (name === undefined) throw usage('no command given')
   if (p.server === undefined) {
     if (name === 'study') throw usage('study commands need --server URL (or RUNGWISE_SERVER)')
-    if (!Object.hasOwn(LOCAL_COMMANDS, name)) throw usage(`unknown command: ${name}`)
+    if (!ENGINE_COMMANDS.includes(name)) throw usage(`unknown command: ${name}`)
     if (rest.length !== 1) throw usage(`${name} takes one input: a file or -`)
+    const { runLocal } = await import('./local')
     return runLocal(io, name, rest[0]!, p.pretty)
   }
   const timeoutS = Number(io.env.RUNGWISE_TIMEOUT_S ?? 600)
   const r: Remote = { io, base: serverBase(p.server), token: io.env.RUNGWISE_TOKEN || undefined, timeoutMs: (Number.isFinite(timeoutS) && timeoutS > 0 ? timeoutS : 600) * 1000, pretty: p.pretty }
-  if (Object.hasOwn(LOCAL_COMMANDS, name)) {
+  if (ENGINE_COMMANDS.includes(name)) {
     if (rest.length !== 1) throw usage(`${name} takes one input: a file or -`)
     return remoteEngine(r, name, rest[0]!)
   }

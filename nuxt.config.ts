@@ -40,6 +40,8 @@ export default defineNuxtConfig({
     // Addresses of reverse proxies whose X-Forwarded-For / X-Forwarded-Host are believed
     // (NUXT_TRUSTED_PROXIES, comma separated); from anyone else those headers are ignored.
     trustedProxies: '',
+    // Requests one API token may make per minute, across instances (429 beyond).
+    apiTokenRequestsPerMinute: 300,
     public: {
       // true when a local SMTP catcher is configured (NUXT_PUBLIC_MAIL_CATCHER)
       mailCatcher: false

@@ -60,7 +60,9 @@ export async function getSessionUser(event: H3Event): Promise<SessionUser | null
  * (no roles given = any signed-in user). Returns the user, whose teamId scopes every query.
  */
 export async function requireUser(event: H3Event, ...roles: Role[]): Promise<SessionUser> {
-  const user = await getSessionUser(event)
+  // An API token (Authorization: Bearer rwt_…) instead of the session cookie: server/utils/apiTokens.ts
+  const apiToken = apiTokenOf(event)
+  const user = apiToken ? await apiTokenUser(event, apiToken) : await getSessionUser(event)
   if (!user) throw createError({ statusCode: 401, statusMessage: MESSAGES.notSignedIn })
   if (roles.length > 0 && !roles.includes(user.role)) throw createError({ statusCode: 403, statusMessage: MESSAGES.forbidden })
   return user

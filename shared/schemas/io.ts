@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { rangedInteger } from './study'
-import { MAX_SAMPLE_INDEX } from '../core/contract/netlist'
+import { MAX_SAMPLE_INDEX, NETLIST_DECKS } from '../core/contract/netlist'
 import { says } from '../core/contract/fields'
 import { MAX_BENCH_CHARS } from '../io/benchCsv'
 
@@ -29,7 +29,9 @@ export const benchBodySchema = z.strictObject({
 export const netlistQuerySchema = z.object({
   candidate: z.string(says('must be a candidate id such as "segmented-m4"')).regex(/^[a-z0-9-]{1,60}$/, says('must be a candidate id such as "segmented-m4"')),
   seed: rangedInteger(0, 2 ** 32 - 1, true).optional(),
-  index: rangedInteger(0, MAX_SAMPLE_INDEX, true).optional()
+  index: rangedInteger(0, MAX_SAMPLE_INDEX, true).optional(),
+  /** 'portable': a plain SPICE deck for any simulator instead of the ngspice deck */
+  deck: z.enum(NETLIST_DECKS, says('must be "ngspice" or "portable"')).optional()
 })
 
 export const benchParamsSchema = z.object({

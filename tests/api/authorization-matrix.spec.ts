@@ -6,6 +6,7 @@ import { testDb } from '../support/db'
 import { api, DEMO, signIn } from '../support/http'
 import { createTeam } from '../support/teams'
 import { AUTHORIZATION_MATRIX, expectedFor, OTHER_ROLES, type Fixtures, type MatrixRow, type OtherRole, type Who } from './authorization-table'
+import { TOKEN_CALLERS, tokenExpectation } from './authorization-tokens'
 
 /**
  * Every API route against every kind of caller, from the one table in authorization-table.ts.
@@ -32,6 +33,9 @@ function routesOnDisk(): string[] {
 let db: Knex
 const cookies: Partial<Record<Who, string>> = {}
 const fixtures = {} as Fixtures
+/** API tokens per token caller, and the display token the sign-in module keeps (as a bearer value it grants nothing). */
+const tokens: Record<string, string> = {}
+let displayToken = ''
 
 beforeAll(async () => {
   db = testDb()
@@ -50,6 +54,12 @@ beforeAll(async () => {
   fixtures.otherTeamId = teamId!
   fixtures.otherUserId = userId!
   fixtures.db = db
+  for (const caller of TOKEN_CALLERS) {
+    const created = await api<{ token: string }>('/api/tokens', { method: 'POST', cookie: cookies[caller.as], body: { name: caller.name, scopes: caller.scopes, expiresInDays: 1 } })
+    expect(created.status).toBe(201)
+    tokens[caller.name] = created.body.token
+  }
+  displayToken = (await api<{ token: string }>('/api/auth/login', { method: 'POST', body: { email: DEMO.engineer, password: 'harrow-lake-demo' } })).body.token
 })
 afterAll(async () => {
   await db.destroy()
@@ -86,6 +96,29 @@ describe('authorization matrix', () => {
         const path = request.path ?? pattern
         const res = await api(path, { method, body: request.body, cookie: who === 'signedOut' ? undefined : cookies[who] })
         expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(expected)
+      })
+    }
+  }
+})
+
+describe('authorization matrix with API tokens (Authorization: Bearer, no cookie)', () => {
+  for (const row of AUTHORIZATION_MATRIX) {
+    const [method, pattern] = row.route.split(' ') as [string, string]
+    for (const caller of TOKEN_CALLERS) {
+      const expected = tokenExpectation(row, caller)
+      if (expected === undefined) continue
+      it(`${row.route} with ${caller.name} → ${expected}`, async () => {
+        const request = await row.request(fixtures, caller.name as Who)
+        const res = await api(request.path ?? pattern, { method, body: request.body, headers: { authorization: `Bearer ${tokens[caller.name]}` } })
+        expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(expected)
+      })
+    }
+    const display = tokenExpectation(row, 'display')
+    if (display !== undefined) {
+      it(`${row.route} with the display token as a bearer value → ${display} (as signed out)`, async () => {
+        const request = await row.request(fixtures, 'signedOut')
+        const res = await api(request.path ?? pattern, { method, body: request.body, headers: { authorization: `Bearer ${displayToken}` } })
+        expect(res.status, JSON.stringify(res.body).slice(0, 300)).toBe(display)
       })
     }
   }

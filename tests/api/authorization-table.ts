@@ -4,6 +4,7 @@ import { LIBRARY_ROWS } from './authorization-library'
 import { NOTE_ROWS } from './authorization-notes'
 import { REVIEW_ROWS } from './authorization-review'
 import { RULE_PACK_ROWS } from './authorization-rule-packs'
+import { TOKEN_ROWS } from './authorization-token-routes'
 
 /**
  * Kinds of caller: no session, each role of the demo team, and each role of a second team
@@ -122,5 +123,7 @@ export const AUTHORIZATION_MATRIX: MatrixRow[] = [
   },
   { route: 'GET /api/admin/mail', expect: { signedOut: 401, admin: 200, architect: 403, engineer: 403, manager: 403, otherTeam: 200 }, request: () => ({}) },
   { route: 'GET /api/portfolio', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
-  { route: 'GET /api/portfolio/export', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) }
+  { route: 'GET /api/portfolio/export', expect: { signedOut: 401, ...ALL_SIGNED_IN }, request: () => ({}) },
+  ...TOKEN_ROWS,
+  { route: 'GET /api/openapi.json', expect: { signedOut: 200 }, request: () => ({}) }
 ]

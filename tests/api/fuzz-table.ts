@@ -27,6 +27,8 @@ export interface FuzzFixtures {
   bench: (studyId: number) => Promise<number>
   /** a fresh engineer of the fuzz team */
   member: () => Promise<number>
+  /** a fresh API token of the fuzz admin: its row id and the token (every scope) */
+  token: () => Promise<{ id: number, token: string }>
   architectId: number
 }
 
@@ -38,8 +40,11 @@ export interface FuzzSample {
 
 export interface FuzzRow {
   route: string
-  /** admin and architect of the fuzz spec's own team (see fuzzTeam in fuzz.spec.ts), or no session */
-  as: 'admin' | 'architect' | 'signedOut'
+  /**
+   * admin and architect of the fuzz spec's own team (see fuzzTeam in fuzz.spec.ts), or no session;
+   * adminToken: the admin through a fresh API token of every scope (Authorization: Bearer, no cookie)
+   */
+  as: 'admin' | 'architect' | 'signedOut' | 'adminToken'
   sample: (f: FuzzFixtures) => FuzzSample | Promise<FuzzSample>
   /** tables compared with CHECKSUM TABLE before and after every refused request */
   tables: string[]
@@ -70,6 +75,7 @@ async function packVersion(f: FuzzFixtures): Promise<number> {
   return (await f.db('rule_packs').where({ id: f.packRowId }).first('version')).version
 }
 
+const TOKEN_TABLES = ['api_tokens', 'audit_log']
 const NOTE_TABLES = ['notes', 'note_mentions', 'note_attachments', 'audit_log']
 const REVIEW_TABLES = ['studies', 'study_reviews', 'study_decisions', 'audit_log']
 /** mail_outbox is left out: the delivery worker updates rows queued by an earlier accepted request at any time. */
@@ -83,20 +89,21 @@ const PORTFOLIO_QUERY = { page: '1', pageSize: '25', status: 'all', q: 'demo', s
 
 export const FUZZ_TABLE: FuzzRow[] = [
   { route: 'GET /api/health', as: 'signedOut', sample: () => ({}), tables: [] },
+  { route: 'GET /api/openapi.json', accepts: 200, as: 'signedOut', sample: () => ({}), tables: [], weight: 0.25 },
   { route: 'POST /api/auth/login', as: 'signedOut', sample: () => ({ body: { email: 'fuzz@nowhere.example', password: 'not-the-password' } }), tables: ['sessions', 'users'] },
   { route: 'POST /api/auth/logout', as: 'signedOut', sample: () => ({ body: {} }), tables: ['users'] },
-  { route: 'GET /api/auth/session', as: 'admin', sample: () => ({}), tables: [] },
-  { route: 'GET /api/studies', as: 'admin', sample: () => ({ query: { page: '1', pageSize: '25' } }), tables: [] },
+  { route: 'GET /api/auth/session', as: 'adminToken', sample: () => ({}), tables: [] },
+  { route: 'GET /api/studies', as: 'adminToken', sample: () => ({ query: { page: '1', pageSize: '25' } }), tables: [] },
   { route: 'POST /api/studies', as: 'admin', sample: () => ({ body: { title: unique(), blockName: 'DAC0', spec: SPEC } }), tables: STUDY_TABLES },
   { route: 'GET /api/studies/:id', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
   { route: 'GET /api/studies/:id/revisions', as: 'admin', sample: f => ({ params: id(f.studyId) }), tables: [] },
-  { route: 'POST /api/studies/:id/revisions', as: 'admin', sample: async f => ({ params: id(f.studyId), body: await revisionBody(f) }), tables: STUDY_TABLES },
+  { route: 'POST /api/studies/:id/revisions', as: 'adminToken', sample: async f => ({ params: id(f.studyId), body: await revisionBody(f) }), tables: STUDY_TABLES },
   { route: 'GET /api/studies/:id/revisions/:n', as: 'admin', sample: f => ({ params: { id: String(f.studyId), n: '1' } }), tables: [] },
   { route: 'GET /api/studies/:id/revisions/compare', as: 'admin', sample: f => ({ params: id(f.studyId), query: { from: '1', to: '1' } }), tables: [] },
   { route: 'POST /api/solve', as: 'admin', sample: () => ({ body: LADDER }), tables: [] },
   { route: 'POST /api/netlist', as: 'admin', sample: () => ({ body: { circuit: LADDER } }), tables: [] },
   { route: 'POST /api/evaluate', as: 'admin', sample: () => ({ body: EVALUATE }), tables: [], weight: 0.5 },
-  { route: 'POST /api/evaluations', as: 'admin', sample: () => ({ body: EVALUATE }), tables: [], weight: 0.5 },
+  { route: 'POST /api/evaluations', as: 'adminToken', sample: () => ({ body: EVALUATE }), tables: [], weight: 0.5 },
   { route: 'GET /api/evaluations/:id', as: 'admin', sample: f => ({ params: id(f.jobId), query: { result: '0' } }), tables: [] },
   { route: 'DELETE /api/evaluations/:id', as: 'admin', sample: f => ({ params: id(f.jobId) }), tables: [] },
   { route: 'GET /api/presets', as: 'admin', sample: () => ({}), tables: [] },
@@ -169,5 +176,9 @@ export const FUZZ_TABLE: FuzzRow[] = [
     tables: [...REVIEW_TABLES, 'study_revisions']
   },
   { route: 'POST /api/studies/:id/reopen', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('decided')).id), body: { statusVersion: 0 } }), tables: REVIEW_TABLES },
+  // API tokens (managed with the session only; the token callers of other rows use them)
+  { route: 'GET /api/tokens', accepts: 200, as: 'admin', sample: () => ({}), tables: [] },
+  { route: 'POST /api/tokens', accepts: 201, as: 'admin', sample: () => ({ body: { name: unique(), scopes: ['read', 'evaluate'], expiresInDays: 30 } }), tables: TOKEN_TABLES },
+  { route: 'DELETE /api/tokens/:id', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.token()).id) }), tables: TOKEN_TABLES },
   { route: 'POST /api/studies/:id/archive', accepts: 200, as: 'admin', sample: async f => ({ params: id((await f.study('decided')).id), body: { statusVersion: 0 } }), tables: REVIEW_TABLES }
 ]

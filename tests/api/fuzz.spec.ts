@@ -24,6 +24,11 @@ let db: Knex
 let adminCookie = ''
 let architectCookie = ''
 const cookieOf = (as: FuzzRow['as']) => (as === 'admin' ? adminCookie : as === 'architect' ? architectCookie : undefined)
+/** How a row calls: the session cookie, or (adminToken) a token of its own, so no row spends another's rate limit. */
+async function authOf(as: FuzzRow['as']): Promise<Auth> {
+  return as === 'adminToken' ? { headers: { authorization: `Bearer ${(await f.token()).token}` } } : { cookie: cookieOf(as) }
+}
+interface Auth { cookie?: string, headers?: Record<string, string> }
 let attemptsBefore = 0
 const f = {} as FuzzFixtures
 
@@ -51,6 +56,12 @@ beforeAll(async () => {
   await db('invitations').insert({ team_id: admin.team_id, email: `fuzz-accept-${Date.now()}@invite.example`, display_name: 'Fuzz Accept', role: 'engineer', token_hash: createHash('sha256').update(f.invitationToken).digest('hex'), expires_at: new Date(Date.now() + 3_600_000), invited_by: admin.id })
   f.db = db
   await notesAndReviewFixtures(admin, team.emails)
+  // written directly (the route's own row fuzzes creation, up to the cap of active tokens)
+  f.token = async () => {
+    const token = `rwt_${randomBytes(32).toString('base64url')}`
+    const [tokenId] = await db('api_tokens').insert({ user_id: admin.id, team_id: admin.team_id, name: 'Fuzz token', prefix: token.slice(0, 12), token_hash: createHash('sha256').update(token).digest('hex'), scopes: 'read,write,evaluate', expires_at: new Date(Date.now() + 86_400_000) })
+    return { id: tokenId!, token }
+  }
   f.member = async () => (await db('users').insert({ team_id: admin.team_id, email: `fuzz-member-${Date.now()}-${Math.floor(Math.random() * 1e9)}@fuzz.example`, display_name: 'Fuzz Member', password_hash: 'x', role: 'engineer' }))[0]!
 })
 
@@ -132,10 +143,10 @@ function attempts(row: FuzzRow, sample: FuzzSample): fc.Arbitrary<Attempt> {
   return fc.oneof(...options)
 }
 
-async function send(method: string, attempt: Attempt, cookie?: string) {
+async function send(method: string, attempt: Attempt, auth: Auth) {
   const started = Date.now()
   const res = await Promise.race([
-    api<{ message?: string, data?: { issues?: { path: string }[] } }>(`${attempt.path}${attempt.query ? `?${attempt.query}` : ''}`, { method, body: attempt.body, cookie }),
+    api<{ message?: string, data?: { issues?: { path: string }[] } }>(`${attempt.path}${attempt.query ? `?${attempt.query}` : ''}`, { method, body: attempt.body, ...auth }),
     new Promise<never>((_r, reject) => setTimeout(() => reject(new Error(`no answer within ${REQUEST_BOUND_MS} ms`)), REQUEST_BOUND_MS))
   ])
   return { ...res, ms: Date.now() - started }
@@ -157,17 +168,17 @@ describe(`fuzzing every API route (seed ${SEED})`, () => {
         const sample = await row.sample(f)
         const path = template.replace(/:(\w+)/g, (_m, name: string) => encodeParam(sample.params?.[name] ?? ''))
         const query = new URLSearchParams(sample.query ?? {}).toString()
-        const res = await send(method, { path, query, body: method === 'GET' || method === 'DELETE' ? undefined : JSON.stringify(sample.body ?? {}) }, cookieOf(row.as))
+        const res = await send(method, { path, query, body: method === 'GET' || method === 'DELETE' ? undefined : JSON.stringify(sample.body ?? {}) }, await authOf(row.as))
         expect(res.status, `${method} ${path}: ${JSON.stringify(res.body).slice(0, 300)}`).toBe(row.accepts)
       })
     }
     it(`${row.route}: 2xx or 4xx, a named field on 400, nothing written when refused`, async () => {
       const [method] = row.route.split(' ') as [string]
-      const cookie = cookieOf(row.as)
+      const auth = await authOf(row.as)
       const sample = await row.sample(f)
       await fc.assert(fc.asyncProperty(attempts(row, sample), async (attempt) => {
         const before = await checksums(row.tables)
-        const res = await send(method, attempt, cookie)
+        const res = await send(method, attempt, auth)
         const what = `${method} ${attempt.path}?${attempt.query.slice(0, 200)} body ${(attempt.body ?? '').slice(0, 300)} → ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`
         expect(res.status, what).toBeGreaterThanOrEqual(200)
         expect(res.status, what).toBeLessThan(500)

@@ -24,10 +24,15 @@ function strict<T extends z.core.$ZodLooseShape>(shape: T) {
   return z.strictObject(shape, strictKeys(Object.keys(shape)))
 }
 
+/** 'ngspice' (default): the deck ngspice runs unchanged; 'portable': elements, sources and sweep only (netlist/portable.ts). */
+export const NETLIST_DECKS = ['ngspice', 'portable'] as const
+const deck = oneOf(NETLIST_DECKS).optional()
+
 /** `{ circuit }` form: the netlist of exactly these element values. */
 export const netlistCircuitInputSchema = strict({
   circuit: solveInputSchema,
-  note: note.optional()
+  note: note.optional(),
+  deck
 })
 
 export const netlistCandidateSchema = strict({
@@ -57,7 +62,8 @@ export const netlistSpecInputSchema = strict({
   sample: sampleSchema.default(null),
   note: note.optional(),
   /** the study's evaluate options (INL definition and switch design decide the sizing); evaluate's defaults when absent */
-  options: evaluateOptionsSchema.optional()
+  options: evaluateOptionsSchema.optional(),
+  deck
 }).superRefine((v, ctx) => {
   const c = v.candidate
   for (const [field, topology] of Object.entries(ONLY)) {
@@ -92,6 +98,9 @@ export const netlistOutputSchema = z.object({
   /** results file of the output-resistance sweep; column `rout` (ohms) or `gout` (siemens) */
   routFile: z.string(),
   routColumn: z.enum(['rout', 'gout']),
+  /** which deck this is; a portable deck writes no files (dcFile and routFile are '') and prints `printColumns` */
+  deck: z.enum(NETLIST_DECKS).optional(),
+  printColumns: z.array(z.string()).optional(),
   /** candidate form only: the circuit that was built (a solve input) and how it was sized */
   circuit: solveInputSchema.optional(),
   sizing: z.object({ unitOhm: z.number(), sigmaUnit: z.number() }).optional(),

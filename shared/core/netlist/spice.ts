@@ -39,8 +39,8 @@ export const TIGHT_TOLERANCES = 'reltol=1e-12 vntol=1e-12 abstol=1e-15'
 /** Probe current (A) injected into the output for the R_out sweep (V_REF shorted). */
 const PROBE_A = 1e-3
 
-/** Emits the circuit; returns independent sources besides V_REF to zero for the R_out sweep. */
-function body(deck: Deck, c: SolveInput): string[] {
+/** Emits the circuit; returns independent sources besides V_REF to zero for the R_out sweep (also portable.ts). */
+export function body(deck: Deck, c: SolveInput): string[] {
   switch (c.topology) {
     case 'string':
       emitString(deck, c)
@@ -59,7 +59,7 @@ function body(deck: Deck, c: SolveInput): string[] {
   }
 }
 
-function header(deck: Deck, c: SolveInput, o: SpiceOptions): void {
+export function header(deck: Deck, c: SolveInput, o: SpiceOptions): void {
   deck.raw(`* Rungwise netlist: ${c.topology}, ${c.bits} bits, V_REF = ${num(c.vrefV)} V`)
   if (o.note) deck.comment(o.note)
   deck.comment('Units: ohms, volts, amperes. Ideal switches are controlled sources (B/V elements).')

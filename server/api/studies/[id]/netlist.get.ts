@@ -37,7 +37,7 @@ export default defineApiHandler(async (event) => {
     throw createError({ statusCode: 400, statusMessage: MESSAGES.invalidInput, message, data: { message, issues: [{ path: q.seed === undefined ? 'seed' : 'index', message }] } })
   }
   const sample = q.seed === undefined ? null : { seed: q.seed, index: q.index! }
-  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, options: head.options, candidate, sample, note: `study ${study.id} revision ${head.number}` })
+  const input = netlistSpecInputSchema.parse({ spec: head.spec, process: head.process, options: head.options, candidate, sample, note: `study ${study.id} revision ${head.number}`, deck: q.deck })
   // Refused before anything is built when even the lower bound is over the limit (a 16-bit string);
   // otherwise built on the worker pool under the user's heavy slot, and a file over the limit is
   // refused there, its text never reaching this thread.
@@ -46,6 +46,6 @@ export default defineApiHandler(async (event) => {
   const signal = clientGone(event)
   const file = await withHeavySlot(user, 'netlist', () => netlistFileInPool(input, MAX_NETLIST_BYTES, signal))
   if (file.text === null) throw tooLarge(q.candidate, head.spec.bits, file.bytes, '')
-  sendAttachment(event, 'text/plain; charset=utf-8', `${study.title}-${q.candidate}-${sample ? `seed${sample.seed}-index${sample.index}` : 'nominal'}.cir`)
+  sendAttachment(event, 'text/plain; charset=utf-8', `${study.title}-${q.candidate}-${sample ? `seed${sample.seed}-index${sample.index}` : 'nominal'}${q.deck === 'portable' ? '-portable' : ''}.cir`)
   return file.text
 })

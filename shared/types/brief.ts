@@ -1,3 +1,4 @@
+import type { WaiverDto } from './review'
 import type { StudyStatus } from './studies'
 
 /** One line of "area and risk against the spec" for the chosen (or recommended) candidate. */
@@ -9,7 +10,8 @@ export interface BriefDto {
   /** what was asked: the spec in sentences */
   asked: string[]
   evaluated: boolean
-  decision: { candidateId: string, label: string, rationale: string, decidedBy: string, decidedAt: string, revision: number } | null
+  /** the decision in force, with a waiver for each line the chosen candidate fails */
+  decision: { candidateId: string, label: string, rationale: string, decidedBy: string, decidedAt: string, revision: number, waivers: WaiverDto[] } | null
   recommendation: { candidateId: string, label: string, reasons: string[] } | null
   /** the candidate the lines describe: the decided one, else the recommended one */
   subject: { candidateId: string, label: string, basis: 'decision' | 'recommendation', lines: BriefLine[] } | null
@@ -20,6 +22,8 @@ export interface BriefDto {
     /** open notes: null until the notes feature reports them */
     openNotes: number | null
   }
+  /** `fail` findings of the subject (of every candidate when there is none), counted as the portfolio counts them */
+  failCount: number | null
   signOffs: { name: string, revision: number, at: string, comment: string | null }[]
   caution: string
   generatedAt: string

@@ -84,6 +84,7 @@ export function specLines(c: EvaluateCandidate, spec: Spec): LineResult[] {
     const failed = c.failing.includes(def.id) || (def.id === 'yield' && c.failing.includes('monotonic'))
     const unsettled = def.id === 'yield' && unsettledItems(c).length > 0
     const state: LineState = failed ? 'fail' : unsettled ? 'unsettled' : value === null ? 'note' : margin !== null && margin < RISK_HEADROOM ? 'risk' : 'pass'
-    return { id: def.id, label: def.label, value: value === null ? 'n/a' : fmt(def.metric, value), limit: limit === null ? '—' : `${def.limitWord} ${fmt(def.metric, limit)}`, margin, marginText: value === null || limit === null ? 'not limited' : marginText(def, value, limit, margin), state }
+    const text = unsettled ? 'interval holds target' : value === null || limit === null ? 'not limited' : marginText(def, value, limit, margin)
+    return { id: def.id, label: def.label, value: value === null ? 'n/a' : fmt(def.metric, value), limit: limit === null ? '—' : `${def.limitWord} ${fmt(def.metric, limit)}`, margin, marginText: text, state }
   })
 }

@@ -24,8 +24,8 @@ let close: () => Promise<void>
 let decidedUrl = ''
 let chosenId = ''
 
-async function finishedJob(cookie: string, options: object) {
-  const job = await api<{ id: number }>('/api/evaluations', { method: 'POST', cookie, body: { spec: SPEC, process: PROCESS, options } })
+async function finishedJob(cookie: string, spec: object, options: object) {
+  const job = await api<{ id: number }>('/api/evaluations', { method: 'POST', cookie, body: { spec, process: PROCESS, options } })
   let status = ''
   for (let i = 0; i < 1200 && status !== 'done'; i++) {
     status = (await api<{ status: string }>(`/api/evaluations/${job.body.id}`, { cookie })).body.status
@@ -35,11 +35,11 @@ async function finishedJob(cookie: string, options: object) {
   return job.body.id
 }
 
-/** A study decided through the API: saved with Monte Carlo results, signed off, decided on a candidate other than the recommended one when there is one. */
-async function decidedStudy(): Promise<void> {
+/** A study saved with Monte Carlo results (through the API), asked for review and signed off by the architect. */
+async function signedOffStudy(title: string, spec: object) {
   const [engineer, architect] = await Promise.all([signIn(DEMO.engineer), signIn(DEMO.architect)])
-  const created = await api<{ id: number }>('/api/studies', { method: 'POST', cookie: engineer, body: { title: `${TAG} decided`, spec: SPEC } })
-  const evaluationId = await finishedJob(engineer, { trials: 100, seed: 9 })
+  const created = await api<{ id: number }>('/api/studies', { method: 'POST', cookie: engineer, body: { title, spec } })
+  const evaluationId = await finishedJob(engineer, spec, { trials: 100, seed: 9 })
   const db = testDb()
   const row = await db('evaluations').where({ id: evaluationId }).first('input')
   const input = typeof row.input === 'string' ? JSON.parse(row.input) : row.input
@@ -49,15 +49,19 @@ async function decidedStudy(): Promise<void> {
   expect(saved.status, JSON.stringify(saved.body)).toBe(201)
   await api(`/api/studies/${created.body.id}/review-request`, { method: 'POST', cookie: engineer, body: { statusVersion: 0, reviewerIds: [architectId] } })
   const signed = await api<{ entries: { id: number, kind: string }[] }>(`/api/studies/${created.body.id}/reviews`, { method: 'POST', cookie: architect, body: { statusVersion: 1, verdict: 'signed_off' } })
-  const candidates = saved.body.results!.candidates
-  const chosen = candidates.find(c => c.id !== saved.body.recommendation?.candidateId) ?? candidates[0]!
+  return { id: created.body.id, revision: saved.body, architect, signOffIds: signed.body.entries.filter(e => e.kind === 'signed_off').map(e => e.id) }
+}
+
+/** A study decided through the API on a candidate other than the recommended one when there is one (with its waivers). */
+async function decidedStudy(): Promise<void> {
+  const { id, revision, architect, signOffIds } = await signedOffStudy(`${TAG} decided`, SPEC)
+  const candidates = revision.results!.candidates
+  const chosen = candidates.find(c => c.id !== revision.recommendation?.candidateId) ?? candidates[0]!
   chosenId = chosen.id
   const waivers = chosen.failing.map(line => ({ line, by: 'Programme board', reason: 'accepted for the evaluation chip' }))
-  const decided = await api(`/api/studies/${created.body.id}/decision`, { method: 'POST', cookie: architect, body: {
-    statusVersion: 2, candidateId: chosen.id, rationale: 'Chosen for the journey.', revision: 1, signOffIds: signed.body.entries.filter(e => e.kind === 'signed_off').map(e => e.id), waivers
-  } })
+  const decided = await api(`/api/studies/${id}/decision`, { method: 'POST', cookie: architect, body: { statusVersion: 2, candidateId: chosen.id, rationale: 'Chosen for the journey.', revision: 1, signOffIds, waivers } })
   expect(decided.status, JSON.stringify(decided.body)).toBe(201)
-  decidedUrl = `/studies/${created.body.id}`
+  decidedUrl = `/studies/${id}`
 }
 
 beforeAll(async () => {
@@ -122,5 +126,37 @@ describe('the truth first', () => {
     expect(await page.getByTestId('source-saved').isChecked()).toBe(true)
     await shoot(page, 'truth-saved-1280')
     await page.context().close()
+  }, 240_000)
+
+  it('decides on a failing candidate only with a waiver per failing line, and shows them in the study, brief and portfolio', async () => {
+    // An area budget of 1e-4 mm² (100 µm²) no 8-bit resistor DAC fits: every candidate fails at least the area line.
+    const title = `${TAG} waived`
+    const { id } = await signedOffStudy(title, { ...SPEC, areaBudgetMm2: 1e-4 })
+    const page = await signedIn(DEMO.admin, `/studies/${id}`)
+    await page.getByTestId('decision-waivers').waitFor({ timeout: 30_000 })
+    await page.getByLabel('Why this candidate').fill('The smallest option; the area budget is being renegotiated.')
+    expect(await page.getByTestId('record-decision').isDisabled()).toBe(true)
+    const fields = page.getByTestId('decision-waivers').locator('input')
+    for (let i = 0; i < await fields.count(); i += 2) {
+      await fields.nth(i).fill('Programme board')
+      await fields.nth(i + 1).fill('budget to be raised for the test chip')
+    }
+    await page.getByTestId('review-decision').scrollIntoViewIfNeeded()
+    await shoot(page, 'truth-waivers-form-1280')
+    await expect.poll(() => page.getByTestId('record-decision').isDisabled()).toBe(false)
+    await page.getByTestId('record-decision').click()
+    await expect.poll(() => page.getByTestId('decision-banner').textContent(), { timeout: 30_000 }).toContain('waiver')
+    expect(await page.getByTestId('decision-waivers-shown').textContent()).toContain('budget to be raised for the test chip')
+    await page.context().close()
+    for (const width of [1280, 390]) {
+      const brief = await signedIn(DEMO.manager, `/briefs/${id}`, width)
+      expect(await brief.getByTestId('brief-waivers').textContent()).toContain('waived by Programme board')
+      await shoot(brief, `truth-brief-${width}`)
+      await brief.goto(`/portfolio?q=${encodeURIComponent(TAG)}`)
+      const row = brief.locator('[data-testid="portfolio-table"] tbody tr').filter({ hasText: title })
+      await expect.poll(() => row.getByTestId('portfolio-waivers').textContent(), { timeout: 20_000 }).toContain('waiver')
+      await shoot(brief, `truth-portfolio-${width}`)
+      await brief.context().close()
+    }
   }, 240_000)
 })

@@ -5,6 +5,7 @@
  * Imported by relative path (scripts run outside Nitro).
  */
 import type { Knex } from 'knex'
+import { evaluateOutputSchema } from '../../shared/core/contract/evaluate'
 import type { EvaluateInput, EvaluateOutput } from '../../shared/core/contract/evaluate'
 import { DEFAULT_WEIGHTS } from '../../shared/findings/weights'
 import type { RankingWeights } from '../../shared/findings/weights'
@@ -33,11 +34,15 @@ export interface RevisionWrite {
 /** The revision row and the study columns that go with it (version, spec, portfolio summary). */
 export function revisionRecord(w: RevisionWrite): { revision: Record<string, unknown>, study: Record<string, unknown>, recommendation: StoredRecommendation | null } {
   const weights = w.weights ?? DEFAULT_WEIGHTS
-  const ranked = w.results ? recommendResults(w.inputs, w.results, weights, candidateLabel) : null
-  const summary = ranked ? portfolioSummary(ranked.results) : null
+  // Results of another shape (rows written before the output contract was checked) are kept as
+  // they are, without a recommendation: only an engine output is ranked.
+  const rankable = w.results !== null && evaluateOutputSchema.safeParse(w.results).success
+  const ranked = rankable ? recommendResults(w.inputs, w.results!, weights, candidateLabel) : null
+  const results = ranked?.results ?? w.results
+  const summary = results ? portfolioSummary(results) : null
   const revision = {
     study_id: w.studyId, number: w.number, spec: JSON.stringify(w.inputs.spec), process: JSON.stringify(w.inputs.process), options: JSON.stringify(w.inputs.options),
-    engine_version: w.engineVersion, results: ranked && w.storeResults !== false ? JSON.stringify(ranked.results) : null,
+    engine_version: w.engineVersion, results: results && w.storeResults !== false ? JSON.stringify(results) : null,
     recommendation: ranked ? JSON.stringify(ranked.recommendation) : null, evaluation_id: w.evaluationId ?? null,
     note: w.note, author_id: w.authorId, weights: JSON.stringify(weights), ...(w.createdAt ? { created_at: w.createdAt } : {})
   }

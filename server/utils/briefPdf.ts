@@ -50,7 +50,7 @@ function sections(doc: Doc, b: BriefDto) {
   for (const x of b.topFindings) para(doc, `${MARK[x.severity] ?? x.severity}: ${x.title} (${x.label})`, { color: SLATE })
   heading(doc, 'Area and risk against the spec')
   if (b.subject) {
-    for (const l of b.subject.lines) para(doc, `${l.meets === null ? '-' : l.meets ? 'meets' : 'FAILS'}  ${l.label}: ${l.value} (target ${l.target})`)
+    for (const l of b.subject.lines) para(doc, `${l.unsettled ? 'NOT SETTLED' : l.meets === null ? '-' : l.meets ? 'meets' : 'FAILS'}  ${l.label}: ${l.value} (target ${l.target})`)
   } else para(doc, b.evaluated ? 'No candidate meets the spec.' : 'Not evaluated yet: no saved revision has results.')
   heading(doc, 'What is open')
   const open = b.open.unresolved

@@ -28,15 +28,20 @@ export function specInWords(s: Spec): string[] {
   ]
 }
 
+/** The subject's spec lines; the verdict is the engine's (`failing`, and `unsettled` for a yield whose interval holds the target). */
 function lines(c: EvaluateCandidate, s: Spec): BriefLine[] {
   const m = c.metrics as Record<string, number | null>
-  const line = (label: string, value: number | null, target: number, fmt: string, atMost = true, prefix = 'up to '): BriefLine =>
-    ({ label, value: f(fmt, value), target: `${atMost ? prefix : 'at least '}${f(fmt, target)}`, meets: value === null ? null : atMost ? value <= target : value >= target })
+  const unsettled = ((c as { unsettled?: string[] }).unsettled ?? []).length > 0
+  const line = (label: string, value: number | null, target: number, fmt: string, fails: boolean, atMost = true): BriefLine => ({
+    label, value: f(fmt, value), target: `${atMost ? 'up to ' : 'at least '}${f(fmt, target)}`,
+    meets: value === null ? null : !fails, ...(label === 'Yield' && unsettled && !fails ? { meets: null, unsettled: true } : {})
+  })
+  const failing = new Set(c.failing)
   return [
-    line('Area', m.totalAreaMm2 ?? null, s.areaBudgetMm2, 'mm2'),
-    line('Yield', m.yield ?? null, s.yieldTarget, 'yield', false),
-    line('Worst glitch', m.glitchWorstVs ?? null, s.glitchLimitVs, 'vs'),
-    line('Reference power', m.refPowerMaxW ?? null, s.powerBudgetW, 'w')
+    line('Area', m.totalAreaMm2 ?? null, s.areaBudgetMm2, 'mm2', failing.has('area')),
+    line('Yield', m.yield ?? null, s.yieldTarget, 'yield', failing.has('yield') || failing.has('monotonic'), false),
+    line('Worst glitch', m.glitchWorstVs ?? null, s.glitchLimitVs, 'vs', failing.has('glitch')),
+    line('Reference power', m.refPowerMaxW ?? null, s.powerBudgetW, 'w', failing.has('power'))
   ]
 }
 

@@ -2,7 +2,8 @@ import type { WaiverDto } from './review'
 import type { StudyStatus } from './studies'
 
 /** One line of "area and risk against the spec" for the chosen (or recommended) candidate. */
-export interface BriefLine { label: string, value: string, target: string, meets: boolean | null }
+/** `meets` is the engine's verdict; `unsettled`: a Monte Carlo yield whose interval holds the target (meets null). */
+export interface BriefLine { label: string, value: string, target: string, meets: boolean | null, unsettled?: boolean }
 
 /** The one-page summary of a study, in plain words (the page and the PDF read the same). */
 export interface BriefDto {

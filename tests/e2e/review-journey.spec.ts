@@ -99,7 +99,7 @@ describe('review journey: draft → review → sign-off → decision → brief',
     await page.goto(`/portfolio?status=decided&q=${encodeURIComponent(TITLE)}`)
     const row = page.locator('[data-testid="portfolio-table"] tbody tr').filter({ hasText: TITLE })
     await expect.poll(async () => (await row.getByTestId('chosen-option').textContent({ timeout: 20_000 }))?.trim()).toMatch(/\S/)
-    const chosen = (await row.getByTestId('chosen-option').textContent())!.replace('✓', '').trim()
+    const chosen = (await row.getByTestId('chosen-option').textContent())!.replace(/[✓▲]/, '').trim()
     await shoot(page, 'review-portfolio-1280')
     await row.getByRole('link', { name: 'brief' }).click()
     await page.getByTestId('brief-title').waitFor()

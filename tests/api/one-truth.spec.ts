@@ -24,8 +24,7 @@ let architect: string
 let manager: string
 let architectId: number
 const tag = `truth-${Date.now()}`
-// Ranking weights far from the defaults (area 3, yield margin 2, …), so a recommendation computed
-// with the default weights anywhere would show up as a disagreement.
+// Weights far from the defaults (area 3, yield margin 2, …): a default-weights pick anywhere would disagree.
 const WEIGHTS = { area: 0, yieldMargin: 0, glitch: 10, referenceLoad: 0, settlingMargin: 10, power: 0, complexity: 10 }
 
 beforeAll(async () => {
@@ -190,8 +189,7 @@ describe('imports never carry unverified results', () => {
     const rev = (await api<RevisionDto>(`/api/studies/${newId}/revisions/${doc.revisions.length}`, { cookie: engineer })).body
     const candidates = rev.results!.candidates
     expect(candidates.length).toBeGreaterThan(0)
-    // (a yield of 1 can be honest: 100 of 100 trials passing; an area of 1e-6 mm² cannot)
-    for (const c of candidates) expect(c.metrics.totalAreaMm2).not.toBe(1e-6)
+    for (const c of candidates) expect(c.metrics.totalAreaMm2).not.toBe(1e-6) // (a yield of 1 can be honest, 100 of 100 trials)
     // computed for the imported inputs (the engine echoes the spec it evaluated)
     expect((rev.results as { spec?: { areaBudgetMm2: number, vrefV: number } }).spec).toMatchObject({ areaBudgetMm2: 0.04, vrefV: 1.8 })
     const row = await portfolioRow(newId)

@@ -77,7 +77,8 @@ export const useComparisonStore = defineStore('comparison', () => {
     saved.value = results
     savedKey.value = results && savedInputs ? canonicalJson(savedInputs) : null
     if (!results && source.value === 'saved') source.value = 'live'
-    if (results && changed) source.value = 'saved'
+    // the Monte Carlo run on screen that was just saved is those results already: no switch, no redraw
+    if (results && changed && !(source.value === 'monte-carlo' && monteCarloCurrent.value)) source.value = 'saved'
   }
 
   /** The team's enabled rule packs, run in the live preview as on the server (set once per page, before inputs). */

@@ -97,7 +97,7 @@ describe('the truth first', () => {
       await shoot(page, `truth-decided-${width}`)
       await page.context().close()
     }
-  }, 120_000)
+  }, 300_000) // two widths of a page with charts, on a shared machine
 
   it('saves a Monte Carlo run made on unchanged inputs', async () => {
     const page = await signedIn(DEMO.engineer, '/studies/new')
@@ -121,12 +121,12 @@ describe('the truth first', () => {
     await expect.poll(() => page.getByTestId('save-revision').isDisabled()).toBe(false)
     expect(await page.getByTestId('save-state').textContent()).toContain('Monte Carlo results not saved yet')
     await page.getByRole('button', { name: 'Save revision' }).click()
-    await expect.poll(() => page.getByTestId('study-version').textContent()).toContain('revision 2')
+    await expect.poll(() => page.getByTestId('study-version').textContent(), { timeout: 30_000 }).toContain('revision 2')
+    // the run on screen is now the saved results, and says so
     await page.getByTestId('basis-saved').waitFor()
-    expect(await page.getByTestId('source-saved').isChecked()).toBe(true)
     await shoot(page, 'truth-saved-1280')
     await page.context().close()
-  }, 240_000)
+  }, 300_000)
 
   it('decides on a failing candidate only with a waiver per failing line, and shows them in the study, brief and portfolio', async () => {
     // An area budget of 1e-4 mm² (100 µm²) no 8-bit resistor DAC fits: every candidate fails at least the area line.
@@ -154,9 +154,9 @@ describe('the truth first', () => {
       await shoot(brief, `truth-brief-${width}`)
       await brief.goto(`/portfolio?q=${encodeURIComponent(TAG)}`)
       const row = brief.locator('[data-testid="portfolio-table"] tbody tr').filter({ hasText: title })
-      await expect.poll(() => row.getByTestId('portfolio-waivers').textContent(), { timeout: 20_000 }).toContain('waiver')
+      await expect.poll(() => row.getByTestId('portfolio-waivers').textContent(), { timeout: 20_000 }).toContain('waived')
       await shoot(brief, `truth-portfolio-${width}`)
       await brief.context().close()
     }
-  }, 240_000)
+  }, 300_000)
 })

@@ -1,5 +1,5 @@
 import type { EvaluateOutputWithFindings } from '#shared/findings/index'
-import type { PreviewAnswer, PreviewReply } from '~~/workers/preview'
+import type { PreviewAnswer, PreviewReply, StoredTeamPack } from '~~/workers/preview'
 
 export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
 
@@ -7,10 +7,12 @@ export type PreviewState = 'idle' | 'computing' | 'ready' | 'invalid'
 export const PREVIEW_DEBOUNCE_MS = 300
 
 /** Runs previews in a module Web Worker when there is one, else in-process (SSR never calls it). */
-function previewRunner(): (seq: number, raw: unknown) => Promise<PreviewReply> {
+type Runner = (seq: number, raw: unknown, packs: StoredTeamPack[]) => Promise<PreviewReply>
+
+function previewRunner(): Runner {
   if (typeof Worker === 'undefined') {
     // Loaded on demand, so the engine stays out of the page bundle when a Worker carries it.
-    return async (seq, raw) => ({ seq, ...(await (await import('~~/workers/preview')).computePreview(raw)) })
+    return async (seq, raw, packs) => ({ seq, ...(await (await import('~~/workers/preview')).computePreview(raw, packs)) })
   }
   const worker = new Worker(new URL('../workers/preview.worker.ts', import.meta.url), { type: 'module' })
   const waiting = new Map<number, (reply: PreviewReply) => void>()
@@ -18,9 +20,9 @@ function previewRunner(): (seq: number, raw: unknown) => Promise<PreviewReply> {
     waiting.get(event.data.seq)?.(event.data)
     waiting.delete(event.data.seq)
   }
-  return (seq, raw) => new Promise((resolve) => {
+  return (seq, raw, packs) => new Promise((resolve) => {
     waiting.set(seq, resolve)
-    worker.postMessage({ seq, raw: JSON.parse(JSON.stringify(raw)) })
+    worker.postMessage({ seq, raw: JSON.parse(JSON.stringify(raw)), packs: JSON.parse(JSON.stringify(packs)) })
   })
 }
 
@@ -33,7 +35,9 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
   const result = shallowRef<EvaluateOutputWithFindings | null>(null)
   const issues = ref<{ path: string, message: string }[]>([])
   const state = ref<PreviewState>('idle')
-  let run: ((seq: number, raw: unknown) => Promise<PreviewReply>) | null = null
+  let run: Runner | null = null
+  /** the team's enabled rule packs, run after the built-in ones as the server runs them */
+  let packs: StoredTeamPack[] = []
   let latest = 0
   let timer: ReturnType<typeof setTimeout> | null = null
 
@@ -51,7 +55,7 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
 
   async function compute(seq: number, raw: unknown) {
     run ??= previewRunner()
-    const reply = await run(seq, raw)
+    const reply = await run(seq, raw, packs)
     if (reply.seq === latest) accept(reply)
   }
 
@@ -73,5 +77,14 @@ export function useLivePreview(debounceMs = PREVIEW_DEBOUNCE_MS) {
     accept({ ok: false, issues: list })
   }
 
-  return { result, issues, state, request, invalidate }
+  /**
+   * Sets the team packs for the previews that follow. Set once, from the page's own fetch, before
+   * the first request: no fetch of its own and no extra preview (a load after mounting once made a
+   * quick Save click get lost, commit 6b77d20).
+   */
+  function setPacks(next: StoredTeamPack[]) {
+    packs = next
+  }
+
+  return { result, issues, state, request, invalidate, setPacks }
 }

@@ -3,7 +3,8 @@
  * (comparison, findings, portfolio columns) instead of "not evaluated yet".
  * `tsx scripts/demo-results.ts`: for each demo study whose only revision is the seeded inputs-only
  * one, runs the full evaluation (the same engine and built-in rule packs as POST /api/evaluate and
- * the CLI) and saves it as revision 2, written like a user's save. Idempotent: a study that already
+ * the CLI) and saves it as revision 2 through writeRevision, like a user's save (the
+ * recommendation ranked with the study's weights). Idempotent: a study that already
  * has a second revision is left alone. Not part of the test seeds (tests start from inputs only).
  */
 import knex from 'knex'
@@ -11,10 +12,10 @@ import { evaluateInputSchema } from '../shared/core/contract/evaluate'
 import { evaluateSpec } from '../shared/core/evaluate'
 import { ENGINE_VERSION } from '../shared/core/version'
 import { applyFindings } from '../shared/findings/index'
-import { portfolioSummary } from '../shared/utils/portfolio'
 import { DEMO_TEAM } from '../migrations/seeds/01-demo-team'
 import { STUDIES } from '../migrations/seeds/03-demo-studies'
 import { knexConfig } from '../server/db/knexfile'
+import { writeRevision } from '../server/db/writeRevision'
 
 const db = knex(knexConfig())
 
@@ -33,20 +34,12 @@ async function main(): Promise<void> {
     const started = performance.now()
     const results = await applyFindings(input, evaluateSpec(input))
     const seconds = (performance.now() - started) / 1000
-    const summary = portfolioSummary(results)
     await db.transaction(async (trx) => {
       const locked = await trx('studies').where({ id: study.id }).forUpdate().first('version')
       if (locked.version !== 1) return
-      await trx('study_revisions').insert({
-        study_id: study.id, number: 2, spec: first.spec, process: first.process, options: first.options,
-        engine_version: ENGINE_VERSION, results: JSON.stringify(results), evaluation_id: null,
-        note: 'Demo data: the first inputs, evaluated by the engine when the demo was set up', author_id: study.owner_id
-      })
-      await trx('studies').where({ id: study.id }).update({
-        version: 2, updated_at: trx.fn.now(),
-        summary_candidate_id: summary.candidateId, summary_area_mm2: summary.areaMm2,
-        summary_fail_count: summary.failCount, summary_meeting_count: summary.meetingCount,
-        summary_candidate_count: summary.candidateCount
+      await writeRevision(trx, {
+        studyId: study.id, number: 2, inputs: input, results, weights: first.weights === null ? null : json(first.weights), engineVersion: ENGINE_VERSION,
+        note: 'Demo data: the first inputs, evaluated by the engine when the demo was set up', authorId: study.owner_id
       })
       await trx('audit_log').insert({
         team_id: team.id, actor_id: study.owner_id, action: 'revision_saved', target_type: 'study', target_id: study.id,

@@ -1,10 +1,12 @@
 import { acceptHMRUpdate, defineStore } from 'pinia'
+import { maxTrialsFor } from '#shared/core/contract/evaluate'
 import type { EvaluateInput, EvaluateOutput } from '#shared/core/contract/evaluate'
 import { rankEvaluation } from '#shared/findings/index'
 import type { EvaluateOutputWithFindings, Finding } from '#shared/findings/index'
 import { DEFAULT_WEIGHTS } from '#shared/findings/weights'
 import type { RankingWeights } from '#shared/findings/weights'
 import { canonicalJson } from '#shared/utils/revisionDiff'
+import type { StoredTeamPack } from '~~/workers/preview'
 import { useStudyStore } from './study'
 
 /** Which result the Candidates area shows. */
@@ -47,7 +49,8 @@ export const useComparisonStore = defineStore('comparison', () => {
   const monteCarloResult = computed(() => mc.result.value)
   const monteCarloCurrent = computed(() => mc.result.value !== null && mc.inputsKey.value === inputsKey.value)
   const evaluationId = computed(() => (monteCarloCurrent.value ? mc.id.value : null))
-  const savedCurrent = computed(() => saved.value !== null && savedKey.value === inputsKey.value)
+  // The saved results belong to the inputs as loaded (the study store's snapshot, read the same way as these inputs).
+  const savedCurrent = computed(() => saved.value !== null && (savedKey.value === inputsKey.value || study.snapshot === inputsKey.value))
   const trials = computed(() => Number(inputs.value?.options.trials ?? 0))
   const canRunMonteCarlo = computed(() => preview.state.value !== 'invalid' && trials.value > 0 && !mc.running.value)
 
@@ -58,21 +61,29 @@ export const useComparisonStore = defineStore('comparison', () => {
   })
   const shown = computed(() => (base.value ? reranked(base.value, weights.value) : null))
 
-  /** Opens a study's comparison (clears another study's job). */
+  /** Opens a study's comparison (clears another study's job): on its saved results when it has them, the truth first. */
   function open(id: number, savedResults: EvaluateOutput | null, savedInputs: Inputs | null) {
     if (studyId.value !== id) {
       mc.clear()
       studyId.value = id
-      source.value = 'live'
+      source.value = savedResults ? 'saved' : 'live'
     }
     setSaved(savedResults, savedInputs)
   }
 
-  /** The head revision's results and the inputs they belong to. */
+  /** The head revision's results and the inputs they belong to; newly saved results are shown at once. */
   function setSaved(results: EvaluateOutput | null, savedInputs: Inputs | null) {
+    const changed = results !== saved.value
     saved.value = results
     savedKey.value = results && savedInputs ? canonicalJson(savedInputs) : null
     if (!results && source.value === 'saved') source.value = 'live'
+    // the Monte Carlo run on screen that was just saved is those results already: no switch, no redraw
+    if (results && changed && !(source.value === 'monte-carlo' && monteCarloCurrent.value)) source.value = 'saved'
+  }
+
+  /** The team's enabled rule packs, run in the live preview as on the server (set once per page, before inputs). */
+  function setTeamPacks(packs: StoredTeamPack[]) {
+    preview.setPacks(packs)
   }
 
   /** New inputs: field errors show at once, otherwise a debounced analytic preview runs. */
@@ -86,6 +97,9 @@ export const useComparisonStore = defineStore('comparison', () => {
     if (source.value === 'monte-carlo' && !monteCarloCurrent.value) source.value = 'live'
     if (source.value === 'saved' && !savedCurrent.value) source.value = 'live'
   }
+
+  /** Trials for "run more trials": ×4, up to the engine's cap for this resolution. */
+  const moreTrials = computed(() => Math.min(Math.max(trials.value, 250) * 4, maxTrialsFor(Number(inputs.value?.spec.bits ?? 16))))
 
   /** Starts Monte Carlo on the server for the current inputs, exactly as they will be saved. */
   async function runMonteCarlo() {
@@ -109,11 +123,11 @@ export const useComparisonStore = defineStore('comparison', () => {
   })
 
   return {
-    studyId, inputs, inputsKey, saved, source, weights, shown, trials, canRunMonteCarlo,
+    studyId, inputs, inputsKey, saved, source, weights, shown, trials, moreTrials, canRunMonteCarlo,
     previewState: preview.state, previewIssues: preview.issues, previewResult: preview.result,
     job: mc.job, jobRunning: mc.running, jobProgress: mc.progress, jobError: mc.error,
     monteCarloResult, monteCarloCurrent, evaluationId, savedCurrent,
-    open, setSaved, setInputs, runMonteCarlo, cancelMonteCarlo: mc.cancel, setWeights, show
+    open, setSaved, setTeamPacks, setInputs, runMonteCarlo, cancelMonteCarlo: mc.cancel, setWeights, show
   }
 })
 

@@ -4,7 +4,7 @@ import { formatNumber } from '#shared/utils/format'
 import { formatMetric } from '#shared/utils/metricFormat'
 
 /** How a candidate stands on one spec line. */
-export type LineState = 'pass' | 'risk' | 'fail' | 'note'
+export type LineState = 'pass' | 'risk' | 'fail' | 'note' | 'unsettled'
 
 /** Headroom below which a met spec line is shown as a risk (common practice, no source). */
 export const RISK_HEADROOM = 0.1
@@ -13,7 +13,9 @@ export const LINE_LOOK: Record<LineState, { shape: string, word: string, text: s
   pass: { shape: '✓', word: 'meets', text: 'text-pass' },
   risk: { shape: '▲', word: 'risk', text: 'text-risk-ink' },
   fail: { shape: '✕', word: 'fails', text: 'text-fail' },
-  note: { shape: '•', word: 'note', text: 'text-slate' }
+  note: { shape: '•', word: 'note', text: 'text-slate' },
+  // a Monte Carlo yield whose confidence interval contains the target: neither met nor failed yet
+  unsettled: { shape: '?', word: 'not settled yet', text: 'text-risk-ink' }
 }
 
 type Spec = Record<string, unknown>
@@ -66,6 +68,12 @@ function marginText(def: Pick<LineDef, 'metric' | 'sense'>, value: number, limit
 
 const fmt = (metric: string, v: number) => (metric === 'yield' ? FORMATS.yield!(v) : formatMetric(metric, v))
 
+/** Yield items (`yield`, `monotonic`) whose Monte Carlo interval contains the target (the engine's `unsettled`). */
+export function unsettledItems(c: EvaluateCandidate): string[] {
+  const list = (c as { unsettled?: unknown }).unsettled
+  return Array.isArray(list) ? list.filter((x): x is string => typeof x === 'string') : []
+}
+
 /** Every spec line of a candidate: its value, the limit, the margin and the state (fail follows the engine). */
 export function specLines(c: EvaluateCandidate, spec: Spec): LineResult[] {
   const m = c.metrics as Metrics
@@ -74,7 +82,9 @@ export function specLines(c: EvaluateCandidate, spec: Spec): LineResult[] {
     const limit = def.limit(spec)
     const margin = lineMargin(def, value, limit)
     const failed = c.failing.includes(def.id) || (def.id === 'yield' && c.failing.includes('monotonic'))
-    const state: LineState = failed ? 'fail' : value === null ? 'note' : margin !== null && margin < RISK_HEADROOM ? 'risk' : 'pass'
-    return { id: def.id, label: def.label, value: value === null ? 'n/a' : fmt(def.metric, value), limit: limit === null ? '—' : `${def.limitWord} ${fmt(def.metric, limit)}`, margin, marginText: value === null || limit === null ? 'not limited' : marginText(def, value, limit, margin), state }
+    const unsettled = def.id === 'yield' && unsettledItems(c).length > 0
+    const state: LineState = failed ? 'fail' : unsettled ? 'unsettled' : value === null ? 'note' : margin !== null && margin < RISK_HEADROOM ? 'risk' : 'pass'
+    const text = unsettled ? 'interval holds target' : value === null || limit === null ? 'not limited' : marginText(def, value, limit, margin)
+    return { id: def.id, label: def.label, value: value === null ? 'n/a' : fmt(def.metric, value), limit: limit === null ? '—' : `${def.limitWord} ${fmt(def.metric, limit)}`, margin, marginText: text, state }
   })
 }

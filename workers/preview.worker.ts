@@ -9,7 +9,7 @@ const scope = self as unknown as {
 
 // The analytic engine off the main thread, so typing stays responsive on 16-bit specs.
 scope.onmessage = async (event) => {
-  const { seq, raw } = event.data
-  const answer = await computePreview(raw)
+  const { seq, raw, packs } = event.data
+  const answer = await computePreview(raw, packs ?? [])
   scope.postMessage({ seq, ...answer })
 }

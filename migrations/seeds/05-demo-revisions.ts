@@ -1,6 +1,7 @@
 import type { Knex } from 'knex'
 import { evaluateInputSchema } from '../../shared/core/contract/evaluate'
 import { ENGINE_VERSION } from '../../shared/core/version'
+import { writeRevision } from '../../server/db/writeRevision'
 import { DEMO_TEAM } from './01-demo-team'
 import { STUDIES } from './03-demo-studies'
 
@@ -24,11 +25,10 @@ export async function seed(knex: Knex): Promise<void> {
     // The engine's own schema fills its defaults, so the demo inputs are exactly what it would take.
     const input = evaluateInputSchema.parse({ spec, process })
     await knex.transaction(async (trx) => {
-      await trx('study_revisions').insert({
-        study_id: study.id, number: 1, spec: JSON.stringify(input.spec), process: JSON.stringify(input.process), options: JSON.stringify(input.options),
-        engine_version: ENGINE_VERSION, results: null, note: 'Demo data: first inputs, not yet evaluated', author_id: study.owner_id
+      await writeRevision(trx, {
+        studyId: study.id, number: 1, inputs: input, results: null, weights: null,
+        engineVersion: ENGINE_VERSION, note: 'Demo data: first inputs, not yet evaluated', authorId: study.owner_id
       })
-      await trx('studies').where({ id: study.id }).update({ version: 1 })
     })
   }
 }

@@ -4,6 +4,7 @@
  */
 import type { Knex } from 'knex'
 import { ENGINE_VERSION } from '../../shared/core/version'
+import { revisionRecord } from '../../server/db/writeRevision'
 import type { SpecVariant } from './variants'
 
 const BLOCKS = ['Sensor trim', 'Bias generator', 'Actuator set point', 'Audio path', 'Calibration', 'LED current', 'Comparator threshold', 'Reference buffer']
@@ -15,42 +16,53 @@ export interface StudySeedOptions { count: number, batch: number, evaluatedShare
 /** Title of bench study i (unique within the team, so rows can be found again by title). */
 export const benchTitle = (i: number, bits: number) => `${BLOCKS[i % BLOCKS.length]} DAC ${bits} bit, bench study ${String(i + 1).padStart(5, '0')}`
 
-interface BatchContext { teamId: number, ownerIds: number[], variants: SpecVariant[], options: StudySeedOptions, now: number }
+/**
+ * A variant's two revision records, built once by writeRevision's revisionRecord (the study id,
+ * author and number are filled in per study). The evaluated one keeps the recommendation and the
+ * summary but not the output itself (about 0.2 MB), so the seed stays small and quick.
+ */
+interface SeedVariant { input: SpecVariant['input'], inputsOnly: ReturnType<typeof revisionRecord>, evaluated: ReturnType<typeof revisionRecord> }
+
+function seedVariant(v: SpecVariant): SeedVariant {
+  const base = { studyId: 0, number: 1, inputs: v.input, weights: null, engineVersion: ENGINE_VERSION, authorId: 0 }
+  return {
+    input: v.input,
+    inputsOnly: revisionRecord({ ...base, results: null, note: 'Bench data: first inputs' }),
+    evaluated: revisionRecord({ ...base, number: 2, results: v.results, storeResults: false, note: 'Bench data: evaluated (recommendation and summary only, results not stored)' })
+  }
+}
+
+interface BatchContext { teamId: number, ownerIds: number[], variants: SeedVariant[], options: StudySeedOptions, now: number }
 
 function studyRow(ctx: BatchContext, i: number) {
   const variant = ctx.variants[i % ctx.variants.length]!
   // Deterministic spread: every share of studies evaluated, updated over the past year.
   const evaluated = ((i * 7919) % 1000) / 1000 < ctx.options.evaluatedShare
   const updated = new Date(ctx.now - ((i * 104_729) % 365_000) * (DAY_MS / 1000))
-  const s = evaluated ? variant.summary : null
+  // The study's columns as writeRevision leaves them after its head revision (the variant's own record).
+  const head = evaluated ? variant.evaluated : variant.inputsOnly
   return {
     row: {
       team_id: ctx.teamId, owner_id: ctx.ownerIds[i % ctx.ownerIds.length], title: benchTitle(i, variant.input.spec.bits),
       block_name: `${BLOCKS[(i >> 3) % BLOCKS.length]} — channel ${i % 64}`, status: STATUSES[i % STATUSES.length],
-      spec: JSON.stringify(variant.input.spec), version: evaluated ? 2 : 1, created_at: new Date(updated.getTime() - 30 * DAY_MS), updated_at: updated,
-      summary_candidate_id: s?.candidateId ?? null, summary_area_mm2: s?.areaMm2 ?? null, summary_fail_count: s?.failCount ?? null,
-      summary_meeting_count: s?.meetingCount ?? null, summary_candidate_count: s?.candidateCount ?? null
+      created_at: new Date(updated.getTime() - 30 * DAY_MS), ...head.study, updated_at: updated
     },
     variant,
     evaluated
   }
 }
 
-function revisionRows(studyId: number, authorId: number, variant: SpecVariant, evaluated: boolean, updated: Date) {
-  const base = {
-    study_id: studyId, spec: JSON.stringify(variant.input.spec), process: JSON.stringify(variant.input.process),
-    options: JSON.stringify(variant.input.options), engine_version: ENGINE_VERSION, results: null, author_id: authorId
-  }
-  const first = { ...base, number: 1, note: 'Bench data: first inputs', created_at: new Date(updated.getTime() - 30 * DAY_MS) }
+/** The revision rows of one study: the inputs, and (evaluated) a second revision with the recommendation. */
+function revisionRows(studyId: number, authorId: number, variant: SeedVariant, evaluated: boolean, updated: Date) {
+  const at = (number: number, created: Date, r: SeedVariant['evaluated']) => ({ ...r.revision, study_id: studyId, author_id: authorId, number, created_at: created })
+  const first = at(1, new Date(updated.getTime() - 30 * DAY_MS), variant.inputsOnly)
   if (!evaluated) return [first]
-  // The summary columns come from an engine run of this exact spec; its output (about 0.2 MB) is
-  // not copied into thousands of revisions, so the seed stays small and quick.
-  return [first, { ...base, number: 2, note: 'Bench data: evaluated (summary only, results not stored)', created_at: updated }]
+  return [first, at(2, updated, variant.evaluated)]
 }
 
 /** Inserts the studies batch by batch; returns their ids in insertion order. */
-export async function seedLargeStudies(knex: Knex, teamId: number, ownerIds: number[], variants: SpecVariant[], options: StudySeedOptions): Promise<number[]> {
-  const ctx: BatchContext = { teamId, ownerIds, variants, options, now: Date.now() }
+export async function seedLargeStudies(knex: Knex, teamId: number, ownerIds: number[], specVariants: SpecVariant[], options: StudySeedOptions): Promise<number[]> {
+  const ctx: BatchContext = { teamId, ownerIds, variants: specVariants.map(seedVariant), options, now: Date.now() }
   const ids: number[] = []
   for (let from = 0; from < options.count; from += options.batch) {
     const planned: ReturnType<typeof studyRow>[] = []

@@ -1,14 +1,14 @@
 /**
  * Spec variants of the large bench team, each evaluated once by the engine (analytic, trials 0,
- * built-in rule packs) so the summary_* columns hold what a real evaluation of that spec says.
+ * built-in rule packs) so the revisions' recommendation and the summary_* columns (written by writeRevision's
+ * revisionRecord) hold what a real evaluation of that spec says.
  * Invented demo data: the specs are placeholders across the engine's ranges, not products.
  */
 import { evaluateSpec, parseEvaluateInput } from '../../shared/core/evaluate'
-import type { EvaluateInput } from '../../shared/core/contract/evaluate'
 import { applyFindings } from '../../shared/findings/index'
-import { portfolioSummary, type PortfolioSummary } from '../../shared/utils/portfolio'
+import type { EvaluateInput, EvaluateOutput } from '../../shared/core/contract/evaluate'
 
-export interface SpecVariant { input: EvaluateInput, summary: PortfolioSummary }
+export interface SpecVariant { input: EvaluateInput, results: EvaluateOutput }
 
 const PROCESS = {
   sheetOhmPerSq: 1000, matchingPctUm: 1.0, matchingConvention: 'pair', unitOhm: 10000, switchOhm: 50, switchSkewS: 1e-10,
@@ -37,7 +37,7 @@ export async function evaluateVariants(): Promise<SpecVariant[]> {
   for (const spec of variantSpecs()) {
     const input = parseEvaluateInput({ spec, process: PROCESS, options: { trials: 0, seed: 1 } })
     const results = await applyFindings(input, evaluateSpec(input))
-    variants.push({ input, summary: portfolioSummary(results) })
+    variants.push({ input, results })
   }
   return variants
 }

@@ -12,11 +12,15 @@ export function reviewRequestMail(data: { reviewerName: string, requesterName: s
 }
 
 /** The owner and the reviewers hear what was decided and why. */
-export function decisionMail(data: { recipientName: string, deciderName: string, studyTitle: string, revision: number, candidate: string, rationale: string, url: string }): MailContent {
+export function decisionMail(data: { recipientName: string, deciderName: string, studyTitle: string, revision: number, candidate: string, rationale: string, url: string, waivers?: { label: string, by: string, reason: string }[] }): MailContent {
+  const waivers = data.waivers ?? []
   const paragraphs = [
     `Hello ${data.recipientName},`,
     `${data.deciderName} recorded the decision on “${data.studyTitle}” (revision ${data.revision}): ${data.candidate}.`,
     `Why: ${data.rationale}`,
+    ...(waivers.length
+      ? [`The chosen candidate fails ${waivers.length} spec ${waivers.length === 1 ? 'line' : 'lines'}, each waived:`, ...waivers.map(w => `✕ ${w.label}: waived by ${w.by}, because ${w.reason}`)]
+      : ['The chosen candidate meets every spec line.']),
     'The study is now read-only; notes stay open. The brief has the one-page summary.'
   ]
   const action = { label: 'Read the brief', url: data.url }

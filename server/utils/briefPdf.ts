@@ -43,15 +43,18 @@ function sections(doc: Doc, b: BriefDto) {
   if (b.decision) {
     para(doc, `Chosen: ${b.decision.label} (${b.decision.candidateId}), decided by ${b.decision.decidedBy} on ${day(b.decision.decidedAt)}, resting on revision ${b.decision.revision}.`, { font: 'bold' })
     para(doc, `Why: ${clip(b.decision.rationale, 900)}`)
+    for (const w of b.decision.waivers.slice(0, 4)) para(doc, `FAILS ${w.label}: waived by ${clip(w.by, 80)}, because ${clip(w.reason, 200)}`)
+    if (b.decision.waivers.length > 4) para(doc, `and ${b.decision.waivers.length - 4} more waivers in Rungwise.`, { color: SLATE })
   } else para(doc, 'No decision has been recorded yet.')
   if (b.recommendation) para(doc, `The rules recommend ${b.recommendation.label}: ${b.recommendation.reasons.slice(0, 3).join('; ')}.`)
   for (const x of b.topFindings) para(doc, `${MARK[x.severity] ?? x.severity}: ${x.title} (${x.label})`, { color: SLATE })
   heading(doc, 'Area and risk against the spec')
   if (b.subject) {
-    for (const l of b.subject.lines) para(doc, `${l.meets === null ? '-' : l.meets ? 'meets' : 'FAILS'}  ${l.label}: ${l.value} (target ${l.target})`)
+    for (const l of b.subject.lines) para(doc, `${l.unsettled ? 'NOT SETTLED' : l.meets === null ? '-' : l.meets ? 'meets' : 'FAILS'}  ${l.label}: ${l.value} (target ${l.target})`)
   } else para(doc, b.evaluated ? 'No candidate meets the spec.' : 'Not evaluated yet: no saved revision has results.')
   heading(doc, 'What is open')
   const open = b.open.unresolved
+  if (b.failCount !== null) para(doc, `Failing findings: ${b.failCount}.`)
   if (open.length === 0) para(doc, 'No failing or risk finding is open for this candidate.')
   for (const x of open.slice(0, 5)) para(doc, `${MARK[x.severity] ?? x.severity}: ${x.title}`)
   if (open.length > 5) para(doc, `and ${open.length - 5} more in Rungwise.`, { color: SLATE })

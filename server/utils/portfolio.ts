@@ -34,9 +34,12 @@ export function portfolioRows(db: Knex, teamId: number, q: PortfolioQuery, limit
   const page = sorted(portfolioBase(db, teamId, q).select('s.id'), q).limit(limit).offset(offset).as('page')
   return sorted(db.from(page).join('studies as s', 's.id', 'page.id').join('users as u', 'u.id', 's.owner_id')
     .select('s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.updated_at', 'u.display_name as owner',
-      's.summary_candidate_id', 's.decision_candidate_id', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
+      's.summary_candidate_id', 's.decision_candidate_id', 's.summary_label', 's.summary_area_mm2', 's.summary_fail_count', 's.summary_meeting_count', 's.summary_candidate_count',
       // open notes: threads neither resolved nor deleted (counted for the page's rows only)
-      openNoteThreads(db, 'n').whereRaw('n.study_id = s.id').count('*').as('open_notes')), q)
+      openNoteThreads(db, 'n').whereRaw('n.study_id = s.id').count('*').as('open_notes'),
+      // waivers of the decision in force (null without one)
+      db('study_decisions as d').whereRaw('d.study_id = s.id').whereNull('d.superseded_at').orderBy('d.id', 'desc').limit(1)
+        .select(db.raw('COALESCE(JSON_LENGTH(d.waivers), 0)')).as('waiver_count')), q)
 }
 
 /** Database row → the portfolio's shape. */
@@ -53,6 +56,8 @@ export function toPortfolioRow(row: Record<string, unknown>): PortfolioRow {
     revision: row.version as number,
     recommendedId: row.summary_candidate_id as string | null,
     chosenId: row.decision_candidate_id as string | null,
+    label: (row.summary_label as string | null) ?? null,
+    waiverCount: row.waiver_count === null || row.waiver_count === undefined ? null : Number(row.waiver_count),
     evaluated,
     areaMm2: row.summary_area_mm2 as number | null,
     areaBudgetMm2: spec.areaBudgetMm2 ?? null,

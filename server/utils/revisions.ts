@@ -13,7 +13,7 @@ export function studyRevisions(db: Knex | Knex.Transaction, studyId: number, ful
   const columns = ['r.number', 'r.engine_version', 'r.note', 'r.author_id', 'u.display_name as author_name', 'r.created_at',
     db.raw('r.results IS NOT NULL as has_results')]
   const query = db('study_revisions as r').join('users as u', 'u.id', 'r.author_id').where('r.study_id', studyId).select(columns)
-  return full ? query.select('r.study_id', 'r.spec', 'r.process', 'r.options', 'r.evaluation_id', 'r.results', 'r.weights') : query
+  return full ? query.select('r.study_id', 'r.spec', 'r.process', 'r.options', 'r.evaluation_id', 'r.results', 'r.weights', 'r.recommendation') : query
 }
 
 export function toRevisionSummary(row: RevisionRow): RevisionSummaryDto {
@@ -27,7 +27,8 @@ export function toRevisionDto(row: RevisionRow): RevisionDto {
   return {
     ...toRevisionSummary(row), studyId: row.study_id as number, spec: json(row.spec), process: json(row.process), options: json(row.options),
     evaluationId: (row.evaluation_id as number | null) ?? null, results: row.results === null ? null : json(row.results),
-    weights: row.weights === null || row.weights === undefined ? null : json(row.weights)
+    weights: row.weights === null || row.weights === undefined ? null : json(row.weights),
+    recommendation: row.recommendation === null || row.recommendation === undefined ? null : json(row.recommendation)
   }
 }
 

@@ -11,12 +11,14 @@ interface StudyRow {
   status_version: number
   owner_id: number
   owner_name: string
+  summary_candidate_id: string | null
+  decision_candidate_id: string | null
   created_at: Date
   updated_at: Date
 }
 
 const STUDY_COLUMNS = ['s.id', 's.title', 's.block_name', 's.status', 's.spec', 's.version', 's.status_version', 's.owner_id',
-  'u.display_name as owner_name', 's.created_at', 's.updated_at']
+  'u.display_name as owner_name', 's.created_at', 's.updated_at', 's.summary_candidate_id', 's.decision_candidate_id']
 
 /** Studies of one team with their owner's name: every study query starts here. */
 export function teamStudies(db: Knex | Knex.Transaction, teamId: number) {
@@ -44,6 +46,8 @@ export function toStudyDto(row: StudyRow): StudyDto {
     version: row.version,
     statusVersion: row.status_version,
     owner: { id: row.owner_id, name: row.owner_name },
+    recommendedId: row.summary_candidate_id ?? null,
+    chosenId: row.decision_candidate_id ?? null,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString()
   }

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex'
 import type { SessionUser } from '#shared/types/auth'
-import type { DecisionDto, PersonDto, ReviewEntryDto, ReviewStateDto } from '#shared/types/review'
+import type { DecisionDto, PersonDto, ReviewEntryDto, ReviewStateDto, WaiverDto } from '#shared/types/review'
 import type { StudyStatus } from '#shared/types/studies'
 
 type Db = Knex | Knex.Transaction
@@ -78,9 +78,9 @@ export async function reviewEntries(db: Db, studyId: number): Promise<ReviewEntr
 
 export async function studyDecisions(db: Db, studyId: number): Promise<DecisionDto[]> {
   const rows = await db('study_decisions as d').join('users as u', 'u.id', 'd.decided_by').where('d.study_id', studyId).orderBy('d.id', 'desc')
-    .select('d.id', 'd.candidate_id', 'd.rationale', 'd.revision_number', 'd.sign_off_ids', 'd.decided_by', 'u.display_name as decided_by_name', 'd.created_at', 'd.superseded_at')
+    .select('d.id', 'd.candidate_id', 'd.rationale', 'd.revision_number', 'd.sign_off_ids', 'd.waivers', 'd.decided_by', 'u.display_name as decided_by_name', 'd.created_at', 'd.superseded_at')
   return rows.map(d => ({
-    id: d.id, candidateId: d.candidate_id, rationale: d.rationale, revision: d.revision_number, signOffIds: json(d.sign_off_ids) as number[],
+    id: d.id, candidateId: d.candidate_id, rationale: d.rationale, revision: d.revision_number, signOffIds: json(d.sign_off_ids) as number[], waivers: (d.waivers ? json(d.waivers) : []) as WaiverDto[],
     decidedBy: { id: d.decided_by, name: d.decided_by_name }, createdAt: new Date(d.created_at).toISOString(),
     supersededAt: d.superseded_at ? new Date(d.superseded_at).toISOString() : null
   }))

@@ -1,12 +1,16 @@
 import type { Knex } from 'knex'
+import type { EvaluateCandidate } from '#shared/core/contract/evaluate'
 import type { DecisionCreate, ReviewRequest, ReviewVerdict } from '#shared/schemas/review'
 import type { SessionUser } from '#shared/types/auth'
+import type { WaiverDto } from '#shared/types/review'
+import { failingLines } from '#shared/utils/recommendation'
+import { candidateLabel } from '../../utils/candidateLabel'
+import { writeRevision } from '../db/writeRevision'
 import { decisionMail, reviewRequestMail } from '../mail/reviewTemplates'
 
 type Trx = Knex.Transaction
+type DecisionResults = Parameters<typeof portfolioSummary>[0] & Parameters<typeof failingLines>[0]
 const json = (v: unknown) => typeof v === 'string' ? JSON.parse(v) : v
-/** A JSON column as read (text or parsed, depending on the driver), written back as text. */
-const again = (v: unknown) => typeof v === 'string' ? v : JSON.stringify(v)
 const mayActOnAny = (user: SessionUser) => user.role === 'architect' || user.role === 'admin'
 
 async function moveStatus(trx: Trx, row: StatusRow, changes: Record<string, unknown>): Promise<void> {
@@ -54,10 +58,10 @@ export async function giveVerdict(trx: Trx, user: SessionUser, id: number, body:
   return entryId!
 }
 
-async function checkDecisionBasis(trx: Trx, row: StatusRow, body: DecisionCreate): Promise<Parameters<typeof portfolioSummary>[0]> {
+async function checkDecisionBasis(trx: Trx, row: StatusRow, body: DecisionCreate): Promise<DecisionResults> {
   if (body.revision !== row.version) throw invalidField('revision', `must be the current revision (${row.version})`)
   const revision = await trx('study_revisions').where({ study_id: row.id, number: row.version }).first('results')
-  const results = revision?.results ? json(revision.results) as Parameters<typeof portfolioSummary>[0] : null
+  const results = revision?.results ? json(revision.results) as DecisionResults : null
   if (!results) throw invalidField('revision', `revision ${row.version} has no saved results; save one with a Monte Carlo run first`)
   const ids = (results.candidates ?? []).map(c => c.id)
   if (!ids.includes(body.candidateId)) throw invalidField('candidateId', `must be one of the revision's candidates: ${ids.join(', ')}`)
@@ -68,25 +72,46 @@ async function checkDecisionBasis(trx: Trx, row: StatusRow, body: DecisionCreate
   return results
 }
 
-/** In review → decided: the chosen candidate, why, the revision and the sign-offs it rests on; mails the owner and reviewers. */
+/**
+ * One waiver per line the chosen candidate fails (and none for a line it does not fail): a field-
+ * named 400 otherwise. Returns the waivers with each line's words, as recorded.
+ */
+export function checkWaivers(results: Parameters<typeof failingLines>[0], body: DecisionCreate): WaiverDto[] {
+  const lines = failingLines(results, body.candidateId)
+  const given = new Map(body.waivers.map(w => [w.line, w]))
+  body.waivers.forEach((w, i) => {
+    if (!lines.some(l => l.key === w.line)) {
+      throw invalidField(`waivers.${i}.line`, `"${w.line}" is not a line ${body.candidateId} fails${lines.length ? ` (it fails: ${lines.map(l => l.key).join(', ')})` : ' (it meets every line)'}`)
+    }
+  })
+  const missing = lines.filter(l => !given.has(l.key))
+  if (missing.length) {
+    throw invalidField('waivers', `${body.candidateId} fails ${missing.map(l => `${l.label} (${l.key})`).join(', ')}; deciding on it needs a waiver for each failing line: who accepts it and why`)
+  }
+  return lines.map(l => ({ line: l.key, label: l.label, by: given.get(l.key)!.by, reason: given.get(l.key)!.reason }))
+}
+
+/** In review → decided: the chosen candidate, why, the revision and the sign-offs it rests on, the waivers of what it fails; mails the owner and reviewers. */
 export async function decide(trx: Trx, user: SessionUser, id: number, body: DecisionCreate): Promise<number> {
   const row = await lockStudyStatus(trx, user, id, body.statusVersion)
   requireStatus(row, 'recording a decision', 'in_review')
   const results = await checkDecisionBasis(trx, row, body)
-  // The portfolio's area and failing findings now describe the chosen candidate.
-  const chosen = portfolioSummary({ ...results, recommendedId: body.candidateId })
+  const waivers = checkWaivers(results, body)
+  // The portfolio's area, failing findings and name now describe the chosen candidate.
+  const chosen = portfolioSummary(results, body.candidateId)
+  const candidate = results.candidates!.find(c => c.id === body.candidateId)! as EvaluateCandidate
   const [decisionId] = await trx('study_decisions').insert({
     study_id: id, candidate_id: body.candidateId, rationale: body.rationale, revision_number: row.version,
-    sign_off_ids: JSON.stringify([...new Set(body.signOffIds)]), decided_by: user.id
+    sign_off_ids: JSON.stringify([...new Set(body.signOffIds)]), waivers: JSON.stringify(waivers), decided_by: user.id
   })
-  await moveStatus(trx, row, { status: 'decided', decision_candidate_id: body.candidateId, summary_area_mm2: chosen.areaMm2, summary_fail_count: chosen.failCount })
+  await moveStatus(trx, row, { status: 'decided', decision_candidate_id: body.candidateId, summary_area_mm2: chosen.areaMm2, summary_fail_count: chosen.failCount, summary_label: candidateLabel(candidate) })
   const owner = await trx('users').where({ id: row.owner_id }).first('id', 'display_name as name', 'email')
   const recipients = new Map([owner, ...await roundReviewers(trx, id, await currentRound(trx, id))].map(p => [p.id, p]))
   for (const p of recipients.values()) {
-    const mail = decisionMail({ recipientName: p.name, deciderName: user.name, studyTitle: row.title, revision: row.version, candidate: body.candidateId, rationale: body.rationale, url: studyUrl(id, true) })
+    const mail = decisionMail({ recipientName: p.name, deciderName: user.name, studyTitle: row.title, revision: row.version, candidate: `${candidateLabel(candidate)} (${body.candidateId})`, rationale: body.rationale, url: studyUrl(id, true), waivers })
     await queueMail(trx, { ...mail, teamId: user.teamId, to: p.email, template: 'decision' })
   }
-  await audit(trx, user, 'study.decided', id, { decisionId, revision: row.version, candidateId: body.candidateId, signOffIds: body.signOffIds })
+  await audit(trx, user, 'study.decided', id, { decisionId, revision: row.version, candidateId: body.candidateId, signOffIds: body.signOffIds, waivers: waivers.map(w => w.line) })
   return decisionId!
 }
 
@@ -96,13 +121,14 @@ export async function reopen(trx: Trx, user: SessionUser, id: number, statusVers
   requireStatus(row, 'reopening', 'decided')
   const decided = await trx('study_revisions').where({ study_id: id, number: row.version }).first()
   const next = row.version + 1
-  await trx('study_revisions').insert({
-    study_id: id, number: next, spec: again(decided.spec), process: again(decided.process), options: again(decided.options), engine_version: decided.engine_version,
-    results: decided.results === null ? null : again(decided.results), evaluation_id: decided.evaluation_id, note: `Reopened after the decision on revision ${row.version}`, author_id: user.id
+  // The decided revision's inputs, results and ranking weights, written like any revision.
+  await writeRevision(trx, {
+    studyId: id, number: next, inputs: { spec: json(decided.spec), process: json(decided.process), options: json(decided.options) },
+    results: decided.results === null ? null : json(decided.results), weights: decided.weights === null ? null : json(decided.weights),
+    engineVersion: decided.engine_version, evaluationId: decided.evaluation_id, note: `Reopened after the decision on revision ${row.version}`, authorId: user.id
   })
   await trx('study_decisions').where({ study_id: id }).whereNull('superseded_at').update({ superseded_at: trx.fn.now() })
-  const summary = decided.results ? portfolioSummary(json(decided.results)) : null
-  await moveStatus(trx, row, { status: 'draft', version: next, decision_candidate_id: null, summary_area_mm2: summary?.areaMm2 ?? null, summary_fail_count: summary?.failCount ?? null })
+  await moveStatus(trx, row, { status: 'draft', decision_candidate_id: null })
   await audit(trx, user, 'study.reopened', id, { fromRevision: row.version, revision: next })
   return next
 }

@@ -13,6 +13,10 @@ export interface PortfolioRow {
   recommendedId: string | null
   /** the candidate chosen by the decision in force (decided and archived studies), else null */
   chosenId: string | null
+  /** the chosen candidate in words when decided, else the recommended one's (null: neither) */
+  label: string | null
+  /** waivers of the decision in force (lines the chosen candidate fails), null without a decision */
+  waiverCount: number | null
   evaluated: boolean
   /** total area of the chosen candidate when decided, else of the recommended one */
   areaMm2: number | null

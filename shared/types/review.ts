@@ -14,12 +14,17 @@ export interface ReviewEntryDto {
   createdAt: string
 }
 
+/** A recorded waiver of a failing line. */
+export interface WaiverDto { line: string, label: string, by: string, reason: string }
+
 export interface DecisionDto {
   id: number
   candidateId: string
   rationale: string
   revision: number
   signOffIds: number[]
+  /** one per line the chosen candidate failed when it was decided: the line, who accepted it and why */
+  waivers: WaiverDto[]
   decidedBy: PersonDto
   createdAt: string
   /** set when the study was reopened after this decision */

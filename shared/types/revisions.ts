@@ -1,5 +1,6 @@
 import type { EvaluateOptions, EvaluateOutput, EvaluateProcess, EvaluateSpec } from '../core/contract/evaluate'
 import type { RankingWeights } from '../findings/weights'
+import type { StoredRecommendation } from '../utils/recommendation'
 
 /** One row of a study's History: who saved which revision, and whether it carries results. */
 export interface RevisionSummaryDto {
@@ -21,6 +22,8 @@ export interface RevisionDto extends RevisionSummaryDto {
   results: EvaluateOutput | null
   /** the ranking weights saved with the revision; null before weights were kept (the defaults apply) */
   weights: RankingWeights | null
+  /** the one recommendation of the results, ranked with `weights` when the revision was written (null without results) */
+  recommendation: StoredRecommendation | null
 }
 
 /** One changed input field between two revisions. */

@@ -14,6 +14,10 @@ export interface StudyDto {
   /** counts status changes; a status change names it and gets 409 when stale */
   statusVersion: number
   owner: { id: number, name: string }
+  /** the head revision's one recommendation (null: none meets spec, or no results) */
+  recommendedId: string | null
+  /** the candidate of the decision in force, else null */
+  chosenId: string | null
   createdAt: string
   updatedAt: string
 }

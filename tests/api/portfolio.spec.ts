@@ -78,7 +78,7 @@ describe('portfolio', () => {
     expect(res.headers.get('content-type')).toMatch(/^text\/csv/)
     expect(res.headers.get('content-disposition')).toMatch(/attachment; filename="rungwise-portfolio-\d{4}-\d{2}-\d{2}\.csv"/)
     const lines = String(res.body).trim().split('\n')
-    expect(lines[0]).toBe('id,title,block,status,bits,owner,revision,recommended,area_mm2,area_budget_mm2,failing_findings,candidates_meeting_spec,candidates,open_notes,last_activity_utc,chosen')
+    expect(lines[0]).toBe('id,title,block,status,bits,owner,revision,recommended,area_mm2,area_budget_mm2,failing_findings,candidates_meeting_spec,candidates,open_notes,last_activity_utc,chosen,option,waivers')
     expect(lines.length).toBe(1 + (await api<PortfolioPage>(`/api/portfolio?q=${tag}&pageSize=100`, { cookie: manager })).body.total)
     expect(String(res.body)).toContain('"\'=HYPERLINK(""x"")')
   })

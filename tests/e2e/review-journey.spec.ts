@@ -81,6 +81,12 @@ describe('review journey: draft → review → sign-off → decision → brief',
   it('admin: records the decision, which locks the inputs', async () => {
     const page = await signedIn(DEMO.admin, studyUrl)
     await page.getByLabel('Why this candidate').fill('Meets every target with the smallest area; the review found no open risk.')
+    // A candidate that fails spec lines is decided only with a waiver for each (none are asked when it meets every line).
+    const waivers = page.getByTestId('decision-waivers').locator('input')
+    for (let i = 0; i < await waivers.count(); i += 2) {
+      await waivers.nth(i).fill('Programme board')
+      await waivers.nth(i + 1).fill('accepted for the first silicon')
+    }
     await page.getByTestId('record-decision').click()
     await page.getByTestId('decision-banner').waitFor()
     // The study reloads after the decision: the save bar goes and the inputs become read-only.
@@ -99,7 +105,7 @@ describe('review journey: draft → review → sign-off → decision → brief',
     await page.goto(`/portfolio?status=decided&q=${encodeURIComponent(TITLE)}`)
     const row = page.locator('[data-testid="portfolio-table"] tbody tr').filter({ hasText: TITLE })
     await expect.poll(async () => (await row.getByTestId('chosen-option').textContent({ timeout: 20_000 }))?.trim()).toMatch(/\S/)
-    const chosen = (await row.getByTestId('chosen-option').textContent())!.replace('✓', '').trim()
+    const chosen = (await row.getByTestId('chosen-option').textContent())!.replace(/[✓▲]/, '').trim()
     await shoot(page, 'review-portfolio-1280')
     await row.getByRole('link', { name: 'brief' }).click()
     await page.getByTestId('brief-title').waitFor()

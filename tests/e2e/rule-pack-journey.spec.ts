@@ -80,6 +80,11 @@ describe('admin adds a team rule, dry-runs it and sees it fire', () => {
     await page.goto('/studies')
     await page.getByRole('link', { name: 'LED bias DAC, 10 bit' }).click()
     await page.waitForURL(/\/studies\/\d+$/)
+    // The live preview runs the team's enabled packs too, so the rule fires before any Monte Carlo run.
+    await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 30_000 }).toContain('up to date')
+    await page.locator('[data-testid="candidates-table"] tr[data-candidate="string-direct"] button[aria-pressed]').click()
+    const live = page.getByTestId('findings-list').locator('[data-rule="switches-over-team-limit"]').first()
+    await expect.poll(() => live.textContent(), { timeout: 20_000 }).toContain(packId)
     await page.getByTestId('mc-run').click()
     await expect.poll(() => page.getByTestId('mc-status').textContent(), { timeout: 90_000 }).toContain('done for these inputs')
     await page.locator('[data-testid="candidates-table"] tr[data-candidate="string-direct"] button[aria-pressed]').click()

@@ -142,4 +142,37 @@ describe('comparison store', () => {
     expect(useStudyStore().weights.yieldMargin).toBe(0)
     expect(localStorage.length).toBe(0)
   })
+
+  it('opens on saved results, shows newly saved ones at once, and leaves them for the live preview only when the inputs change', async () => {
+    // the rule is the product's ("the truth first", issue 12): common practice, no source
+    const store = useComparisonStore()
+    const input = parseEvaluateInput(inputs())
+    const saved = await applyFindings(input, evaluateSpec(input))
+    store.open(8, saved, inputs())
+    expect(store.source).toBe('saved')
+    store.setInputs(inputs())
+    expect(store.source).toBe('saved')
+    store.setInputs(inputs({ vrefV: 1.8 }))
+    expect(store.source).toBe('live')
+    const again = await applyFindings(input, evaluateSpec(input))
+    store.setSaved(again, inputs())
+    expect(store.source).toBe('saved')
+  })
+
+  it('runs the team\'s enabled rule packs in the live preview, as the server does', async () => {
+    const store = useComparisonStore()
+    // a team rule on the engine's own switch count (the rule-pack schema's fields; any string has 2^12 tap switches at 12 bits)
+    const pack = { id: 'team-layout-test', name: 'Team layout', rules: [{
+      id: 'switches-over-team-limit', severity: 'warn', title: 'More switches than our layout allows',
+      explanation: '{metrics.switchCount} switches, over our line of 100.', action: 'Choose a candidate with fewer switches.',
+      basis: { handbook: ['§4.6'], metrics: ['switchCount'] }, threshold: { source: 'common-practice', note: 'our layout line' },
+      conditions: { all: [{ fact: 'metrics', path: '$.switchCount', operator: 'greaterThan', value: 100 }] }
+    }] }
+    store.setTeamPacks([{ packId: 'team-layout-test', version: 1, pack }])
+    store.open(9, null, null)
+    store.setInputs(inputs())
+    await livePreview(store)
+    const fired = store.shown!.findings.filter(f => f.packId === 'team-layout-test').map(f => f.candidateId)
+    expect(fired).toContain('string-direct')
+  })
 })

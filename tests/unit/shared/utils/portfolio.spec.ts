@@ -28,4 +28,10 @@ describe('portfolioSummary', () => {
   it('reads results saved before findings existed', () => {
     expect(portfolioSummary({ candidates })).toMatchObject({ candidateId: null, failCount: 0, candidateCount: 3 })
   })
+
+  it('counts the chosen candidate\'s failing findings and area when a decision is in force (one definition with the brief)', () => {
+    expect(portfolioSummary({ recommendedId: 'segmented-m4', candidates, findings }, 'r2r-voltage')).toEqual({
+      candidateId: 'segmented-m4', areaMm2: 0.012, failCount: 2, meetingCount: 2, candidateCount: 3
+    })
+  })
 })

@@ -4,11 +4,13 @@ import { revisionCreateSchema } from '#shared/schemas/revisions'
 import { idParamSchema } from '#shared/schemas/study'
 import { STUDY_EDITOR_ROLES } from '#shared/types/auth'
 import type { RevisionDto } from '#shared/types/revisions'
+import { writeRevision } from '../../../../db/writeRevision'
 
 /**
  * Saves the next immutable revision of a study in one transaction. 409 (with the current version
  * in `data.currentVersion`) when `baseVersion` is not the study's version: someone saved first.
- * The ranking weights are kept with the revision (the defaults when the body has none).
+ * The ranking weights are kept with the revision (the defaults when the body has none), and results
+ * are ranked with them: the revision stores the study's one recommendation (writeRevision).
  * 423 when the study is decided or archived (read-only until reopened); 403 for an engineer who
  * does not own the study.
  */
@@ -28,18 +30,9 @@ export default defineApiHandler(async (event): Promise<RevisionDto> => {
     }
     const evaluated = body.evaluationId === undefined ? null : await evaluationResults(trx, user.teamId, body.evaluationId, inputs)
     const next = study.version + 1
-    await trx('study_revisions').insert({
-      study_id: id, number: next, spec: JSON.stringify(body.spec), process: JSON.stringify(body.process), options: JSON.stringify(body.options),
-      engine_version: evaluated?.engineVersion ?? ENGINE_VERSION, results: evaluated ? JSON.stringify(evaluated.results) : null,
-      evaluation_id: body.evaluationId ?? null, note: body.note || null, author_id: user.id,
-      weights: JSON.stringify(body.weights ?? DEFAULT_WEIGHTS)
-    })
-    const summary = evaluated ? portfolioSummary(evaluated.results) : null
-    await trx('studies').where({ id }).update({
-      version: next, spec: JSON.stringify(body.spec), updated_at: trx.fn.now(),
-      summary_candidate_id: summary?.candidateId ?? null, summary_area_mm2: summary?.areaMm2 ?? null,
-      summary_fail_count: summary?.failCount ?? null, summary_meeting_count: summary?.meetingCount ?? null,
-      summary_candidate_count: summary?.candidateCount ?? null
+    await writeRevision(trx, {
+      studyId: id, number: next, inputs, results: evaluated?.results ?? null, weights: body.weights ?? DEFAULT_WEIGHTS,
+      engineVersion: evaluated?.engineVersion ?? ENGINE_VERSION, evaluationId: body.evaluationId ?? null, note: body.note || null, authorId: user.id
     })
     await writeAudit({ teamId: user.teamId, actorId: user.id, action: 'revision_saved', targetType: 'study', targetId: id, detail: { number: next, withResults: Boolean(evaluated) } }, trx)
     return await studyRevisions(trx, id, true).where('r.number', next).first()

@@ -167,23 +167,45 @@ function allowedFails(k: number, yieldTarget: number): number {
  * 0 when no σ meets it (the circuit fails without mismatch).
  */
 export function sigmaForYield(crit: Float64Array, yieldTarget: number): number {
-  const sorted = Float64Array.from(crit).sort()
+  const { sorted, fit } = sortedCrit(crit)
   const fails = allowedFails(sorted.length, yieldTarget)
   if (fails >= TAIL_COUNT) return sorted[fails]!
-  const fit = tailFit(sorted)
   if (!fit) return sorted[Math.max(0, fails)]!
   // the same margin in the tail: read the fit at half the allowed failure rate
   const sigma = Math.sqrt(fit.beta / (fit.alpha - Math.log((1 - yieldTarget) / 2)))
   return Math.min(sigma, sorted[TAIL_COUNT - 1]!)
 }
 
+/** Sorted copy and tail fit of a critical-σ array, made once per array (the yield curve reads it 15 times). */
+const sortedOf = new WeakMap<Float64Array, { sorted: Float64Array, fit: ReturnType<typeof tailFit> }>()
+
+function sortedCrit(crit: Float64Array): { sorted: Float64Array, fit: ReturnType<typeof tailFit> } {
+  let hit = sortedOf.get(crit)
+  if (!hit) {
+    const sorted = Float64Array.from(crit).sort()
+    hit = { sorted, fit: tailFit(sorted) }
+    sortedOf.set(crit, hit)
+  }
+  return hit
+}
+
+/** Number of sorted values below x (binary search). */
+function countBelow(sorted: Float64Array, x: number): number {
+  let lo = 0
+  let hi = sorted.length
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    if (sorted[mid]! < x) lo = mid + 1
+    else hi = mid
+  }
+  return lo
+}
+
 /** The fraction of trials passing at σ, with the fitted tail where fewer than TAIL_COUNT fail. */
 export function yieldAt(crit: Float64Array, sigma: number): number {
-  let fails = 0
-  for (let t = 0; t < crit.length; t++) fails += crit[t]! < sigma ? 1 : 0
-  if (fails >= TAIL_COUNT) return 1 - fails / crit.length
-  const fit = tailFit(Float64Array.from(crit).sort())
-  if (!fit) return 1 - fails / crit.length
+  const { sorted, fit } = sortedCrit(crit)
+  const fails = countBelow(sorted, sigma)
+  if (fails >= TAIL_COUNT || !fit) return 1 - fails / crit.length
   return 1 - Math.min(TAIL_COUNT / crit.length, Math.exp(fit.alpha - fit.beta / (sigma * sigma)))
 }
 

@@ -6,7 +6,8 @@
 import type { EvaluateInput } from '../contract/evaluate'
 import { analyseCandidate } from '../evaluation/analytic'
 import type { CandidateContext } from '../evaluation/context'
-import { candidateContexts } from '../evaluation/context'
+import { candidateContext } from '../evaluation/context'
+import { candidateShapes } from '../models/shapes'
 import { sizeUnit } from '../models/sizing'
 import type { MonteCarloFacts, Trace } from './types'
 
@@ -75,10 +76,12 @@ function traceFast(c: CandidateContext, trace: Trace): void {
  * @throws Error when the input has no candidate of that id
  */
 export function explainCandidate(input: EvaluateInput, candidate: { id: string }): Trace {
-  const c = candidateContexts(input).find(x => x.shape.id === candidate.id)
-  if (!c) {
+  // only this candidate's context: building every context would size the whole sweep (the page calls this on its own thread)
+  const shape = candidateShapes(input.spec.bits, input.options.topologies).find(x => x.id === candidate.id)
+  if (!shape) {
     throw new Error(`explainCandidate: no candidate ${candidate.id} in this input`)
   }
+  const c = candidateContext(shape, input)
   const trace: Trace = {}
   sizeUnit(c.shape, c.sizingSpec, input.process, trace, c.sizingGiven)
   if (!trace.unitOhmChoice) {

@@ -80,10 +80,11 @@ function buildContext(shape: CandidateShape, input: EvaluateInput): CandidateCon
   }
   // pure: no error without resistor mismatch, so every trial's error scales with σ_u (one pass)
   const nominal = nominalErrors(make(0))
-  const pure = nominal.inl < 1e-9 * spec.inlTargetLsb && nominal.dnl < 1e-9 * spec.dnlTargetLsb
-    && process.switchMismatchPct === 0 && !(shape.buffered === true && process.bufferOffsetSigmaV > 0)
+  const randomAtZero = process.switchMismatchPct > 0 || (shape.buffered === true && process.bufferOffsetSigmaV > 0)
+  const pure = nominal.inl < 1e-9 * spec.inlTargetLsb && nominal.dnl < 1e-9 * spec.dnlTargetLsb && !randomAtZero
   const trials = sizingTrials(probe.normals * (shape.topology === 'two-stage-string' ? 8 : 1))
-  const sampled = sampleSizing({ stream: streamOf(shape, input), sampler: make, startSigma: closed.sigmaRequired, pure, trials }, {
+  const sampled = sampleSizing({ stream: streamOf(shape, input), sampler: make, startSigma: closed.sigmaRequired, pure, randomAtZero, trials,
+    refine: randomAtZero || Math.max(nominal.inl / spec.inlTargetLsb, nominal.dnl / spec.dnlTargetLsb) >= 0.05 }, {
     inlTargetLsb: spec.inlTargetLsb, dnlTargetLsb: spec.dnlTargetLsb, monotonicRequired: spec.monotonicRequired, yieldTarget: spec.yieldTarget
   })
   const feasible = sampled.sigmaForAll > 0

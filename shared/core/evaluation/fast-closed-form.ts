@@ -50,7 +50,7 @@ function referenceU(input: EvaluateInput): { u: Float64Array, trials: number } {
   const a = inlModel(ref, twoR).scale
   const sampler = (sigmaUnit: number) => createSampler(ref, { sigmaUnit, switchRatio: 0, twoR, offsetSigma: 0, def: input.options.inlDefinition })
   const trials = sizingTrials(2 ** REFERENCE_BITS)
-  const sized = sampleSizing({ stream: `bridge-reference:${input.options.inlDefinition}`, sampler, startSigma: 1e-4, pure: true, trials }, { inlTargetLsb: 1, dnlTargetLsb: 1, monotonicRequired: false, yieldTarget: 0.5 })
+  const sized = sampleSizing({ stream: `bridge-reference:${input.options.inlDefinition}`, sampler, startSigma: 1e-4, pure: true, randomAtZero: false, refine: false, trials }, { inlTargetLsb: 1, dnlTargetLsb: 1, monotonicRequired: false, yieldTarget: 0.5 })
   // crit = T/(a·U) at T = 1: U = 1/(a·crit)
   return { u: sized.crit.inl.map(c => 1 / (a * c)), trials }
 }

@@ -67,8 +67,12 @@ export interface SizingJob {
   startSigma: number
   /** no nominal error and no switch mismatch: f(0) = 0 and the chord is exact everywhere */
   pure: boolean
+  /** errors that stay random without resistor mismatch (switch mismatch, buffer offsets): f(0) differs per circuit */
+  randomAtZero: boolean
   /** circuits in the sample (sizingTrials) */
   trials: number
+  /** sample again at the σ found (a nominal error large enough to bend the chord, ≥ 5 % of a target) */
+  refine: boolean
 }
 
 interface Pass { inl: Float64Array, dnl: Float64Array, mono: Float64Array }
@@ -215,7 +219,7 @@ export function fastYields(crit: CriticalSigmas, sigma: number): FastYields {
 }
 
 function zeroPass(j: SizingJob): Pass {
-  if (!j.pure) return samplePass(j.sampler(0), j.stream, j.trials)
+  if (j.randomAtZero) return samplePass(j.sampler(0), j.stream, j.trials)
   const n = nominalErrors(j.sampler(0))
   const p = newPass(j.trials)
   p.inl.fill(n.inl)
@@ -232,7 +236,7 @@ export function sampleSizing(j: SizingJob, g: SampledTargets): SampledSizing {
   const zero = zeroPass(j)
   let sigma = j.pure ? PURE_SIGMA : j.startSigma
   let crit = criticals(zero, samplePass(j.sampler(sigma), j.stream, j.trials), sigma, g)
-  for (let pass = 0; pass < REFINE_PASSES && !j.pure; pass++) {
+  for (let pass = 0; pass < REFINE_PASSES && j.refine; pass++) {
     const next = sigmaForYield(crit.all, g.yieldTarget)
     if (!(next > 0) || Math.abs(next / sigma - 1) <= 0.02) break
     sigma = next

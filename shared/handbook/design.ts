@@ -1,9 +1,9 @@
 import type { HandbookSection } from './types'
 
-/** §4.7: how Rungwise sizes units and finds its fast yields. */
+/** §4.9: how Rungwise sizes units and finds its fast yields. */
 export const SAMPLED_SIZING: HandbookSection[] = [
   {
-    id: '4.7',
+    id: '4.9',
     title: 'Sizing and fast yields on a fixed sample of circuits',
     body: [
       'The closed forms of §4.3–§4.5 treat the errors as purely random and, for most arrays, as independent steps. A real candidate also carries deterministic errors: switch on-resistance and what is left of it after compensation (§11), the loading of a two-stage string, and the spread of the switches between corners. Those errors and the random ones add code by code, and a closed form cannot know where they line up.',

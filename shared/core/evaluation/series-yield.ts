@@ -2,7 +2,7 @@
  * Fast yield against the unit resistor area, at a ladder of unit areas around the drawn unit
  * (1/16 × … 8 × in √2 steps). At each area the unit σ follows the Pelgrom area law
  * (σ_u = A_R,single/√A, MODELS.md §4.1) and the INL, DNL and monotonicity yields are read from the
- * candidate's sizing sample (handbook §4.7), or from the closed forms of §4.2–§4.5 for arrays too
+ * candidate's sizing sample (handbook §4.9), or from the closed forms of §4.2–§4.5 for arrays too
  * large to sample. At the drawn area the values are the candidate's fast yields exactly.
  */
 import type { EvaluateInput } from '../contract/evaluate'

@@ -6,16 +6,21 @@ export const DYNAMICS: HandbookSection[] = [
     id: '5',
     title: 'Glitch: a first-order model for ranking',
     body: [
-      'Count what switches at a transition a → b: a binary section toggles one switch per changed bit, a thermometer section one element per leg turned on or off, and a directly decoded string always two (one tap off, one on), which is why strings glitch little and evenly.',
+      'Count what switches at a transition a → b: a binary section toggles one switch per changed bit, a thermometer section one element per leg turned on or off, and a directly decoded string always two (one tap off, one on), so a string has almost no skew glitch and its glitch hardly changes with the code.',
       'Skew term. If the elements turning on and those turning off switch Δt apart, the output spends Δt at a wrong level. Against an ideal step at the mean instant, the area is half the summed weights of both groups times V_LSB times |Δt|, and zero when only one group moves. At a binary major carry this is about half the full scale times Δt; segmenting with M unary bits cuts it by about 2^(M−1).',
       'Charge term. Each switch dumps some charge on its node; through the node\'s resistance R_out it becomes an area α·q·R_out, independent of the node capacitance. α is the share that reaches the output: near 1 for a string\'s tap switch, small for ladder legs that sit on the reference or ground.',
+      'That is why a string, despite its two switches, often shows the largest glitch in a comparison: its output resistance is large (a quarter of the whole string at mid-scale, §2.1), and the tap switch sits right on the output. A 10-bit string of 10 kΩ units peaks near 2.6 MΩ, so every femtocoulomb reaching the output is about 2.6 nV·s; with a binary-tree decoder several switches in the path toggle, and tens of nV·s are the expected result, not an error of the model. A ladder\'s legs swing between low-impedance nodes and its output resistance is R or less, so the same charge costs it a tiny fraction of that. The cures differ accordingly: a string needs less charge (smaller or complementary tap switches, half-size dummies that cancel the charge) or a lower resistance for it to leave through (smaller units, an output buffer at the tap), while a binary ladder needs unary MSBs and tighter timing against its skew term.',
       'Rungwise adds both terms for each transition and reports the worst, with the major carry and the segment boundaries always included. Break-before-make gaps and unsynchronised tree decoders are not modelled and are flagged for simulation.'
     ],
     formulas: [
       { text: 'GI_skew ≈ ½ · (W_on + W_off) · V_LSB · |Δt|   (both groups non-empty)', label: 'derived' },
-      { text: 'GI_q ≈ α · n_toggled · q_switch · R_out', label: 'derived' }
+      { text: 'GI_q ≈ α · n_toggled · q_switch · R_out', label: 'derived' },
+      { text: 'string: R_out,max ≈ 2^N · R / 4  ⇒  GI_q ≈ α · n_toggled · q_switch · 2^N · R / 4', label: 'derived' }
     ],
-    sources: ['R. J. Baker, CMOS Circuit Design, Layout, and Simulation: skewed lower bits briefly applying the all-zeros code at mid-scale. W. Kester (ed.), Data Conversion Handbook: the string\'s low, code-independent glitch.'],
+    sources: [
+      'R. J. Baker, CMOS Circuit Design, Layout, and Simulation: skewed lower bits briefly applying the all-zeros code at mid-scale. W. Kester (ed.), Data Conversion Handbook: the string\'s code-independent switching activity.',
+      'The charge term and the string\'s large impulse: derived here (charge into a resistance, independent of the capacitance). Complementary and dummy switches against charge injection: common practice, no source.'
+    ],
     cautions: ['Glitch figures rank architectures; the real glitch depends on driver timing, layout, supply and reference bounce, digital feedthrough and the output buffer.']
   },
   {

@@ -24,13 +24,18 @@ export const VARIANTS = {
   base: {},
   bits10: { spec: { bits: 10 } },
   fast: { spec: { updateRateHz: 1.2e6 } },
+  tooFast: { spec: { updateRateHz: 3e6 } },
   tinyArea: { spec: { areaBudgetMm2: 0.0003 } },
   refR: { spec: { refSourceOhm: 10, loadResistanceOhm: 1e6 } },
   noSwitchR: { process: { switchOhm: 0 } },
   bigSwitch10: { spec: { bits: 10 }, process: { switchOhm: 600 } },
   mcBase: { options: { trials: 400 } },
   mcSwitch: { process: { switchOhm: 400 }, options: { trials: 400 } },
-  mcSwitchNoMono: { spec: { monotonicRequired: false }, process: { switchOhm: 400 }, options: { trials: 400 } }
+  mcSwitchNoMono: { spec: { monotonicRequired: false }, process: { switchOhm: 400 }, options: { trials: 400 } },
+  bigSwitch10NoMono: { spec: { bits: 10, monotonicRequired: false }, process: { switchOhm: 600 } },
+  lowPower: { spec: { powerBudgetW: 1e-4 } },
+  bufferOffset: { process: { bufferOffsetSigmaV: 5e-3 }, options: { trials: 400 } },
+  bufferOffsetNoMono: { spec: { monotonicRequired: false }, process: { bufferOffsetSigmaV: 2e-3 }, options: { trials: 400 } }
 } satisfies Record<string, Change>
 export type Variant = keyof typeof VARIANTS
 

@@ -21,7 +21,7 @@ export interface SpiceRewrite {
 const PREFIXES: Record<string, string> = { t: 'T', g: 'G', meg: 'M', k: 'k', m: 'm', u: 'u', n: 'n', p: 'p', f: 'f' }
 /** Unit words in any case → the mathjs unit. */
 const BASES: Record<string, string> = {
-  v: 'V', f: 'F', ohm: 'ohm', ohms: 'ohm', hz: 'Hz', s: 's', a: 'A', c: 'C', w: 'W', vs: 'V*s', 'v*s': 'V*s', lsb: 'LSB', sps: 'sps'
+  'v': 'V', 'f': 'F', 'ohm': 'ohm', 'ohms': 'ohm', 'hz': 'Hz', 's': 's', 'a': 'A', 'c': 'C', 'w': 'W', 'vs': 'V*s', 'v*s': 'V*s', 'lsb': 'LSB', 'sps': 'sps'
 }
 const NUMBER = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:e[-+]?\d+)?)(\s*)(.*)$/i
 

@@ -29,7 +29,7 @@ export const DYNAMICS: HandbookSection[] = [
     body: [
       'A single-pole output settles a full-scale step to ±½ LSB in (N + 1)·ln 2 time constants: about 7.6 τ at 10 bits, 9.0 τ at 12 and 11.8 τ at 16. τ is the worst driving resistance into the load capacitance. The update-rate check adds the latch delay; a buffer adds its own slew and settling.',
       'With a voltage-mode ladder, a reference source resistance R_s drops the internal reference by R_s·I_REF(code). Since I_REF changes with the code, that becomes INL growing roughly with 2^N·N·R_s/R. Rungwise computes the largest R_s that keeps this inside the INL budget from the exact reference current of every code, instead of a fixed rule. The same current steps must also settle on the reference within an update period.',
-      'Strings and current-mode ladders load the reference with a constant resistance, so R_s only scales their gain.,
+      'Strings and current-mode ladders load the reference with a constant resistance, so R_s only scales their gain.',
       'The same exact reference current gives the reference power: V_REF·I_REF at the heaviest code (the figure checked against the power budget) and averaged over all codes. It falls as 1/R and, in a segmented converter, grows with the 2^M − 1 unary legs in parallel; a string draws V_REF²/(2^N·R) at every code.'
     ],
     formulas: [

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { FACT_FIELDS, FACTS } from '#shared/findings/fields'
+import { conditionWords } from '#shared/findings/conditionWords'
 import { factLabel, metricLabel } from '#shared/findings/labels'
+import { BUILT_IN_PACKS } from '#shared/findings/registry'
 
 // No internal names on screen (issue 14; common practice, no source): every field a rule can read
 // has words of its own, which are never the camelCase contract name.
@@ -17,5 +19,24 @@ describe('fact labels', () => {
     expect(metricLabel('refSourceMaxOhm')).toBe('largest reference source resistance allowed')
     expect(metricLabel('derived.systematicDnlMinLsb')).toBe('most negative nominal DNL step (signed)')
     expect(metricLabel('sigmaForDnl')).toBe('σ of one unit the DNL target needs')
+  })
+})
+
+// The editor reads a stored condition back as a sentence (common practice, no source); every
+// condition of the built-in pack must read without a camelCase contract name or operator.
+describe('conditionWords', () => {
+  it('reads a stored condition in the interface\'s words', () => {
+    expect(conditionWords({ fact: 'metrics', path: '$.totalAreaMm2', operator: 'greaterThan', value: 0.01 })).toBe('Result: total area is above 0.01')
+    expect(conditionWords({ all: [
+      { fact: 'spec', path: '$.monotonicRequired', operator: 'equal', value: true },
+      { fact: 'metrics', path: '$.unitWidthUm', operator: 'lessThan', value: { fact: 'process', path: '$.minWidthUm' } }
+    ] })).toMatch(/^all of \(Target: .+ is yes; Result: unit width is below the process: .+\)$/)
+  })
+
+  it('reads every condition of the built-in pack without contract names', () => {
+    for (const rule of BUILT_IN_PACKS[0]!.rules) {
+      const text = conditionWords(rule.conditions)
+      expect(text, rule.id).not.toMatch(/\$\.|\b[a-z]+[A-Z][a-zA-Z]*\b/)
+    }
   })
 })

@@ -54,7 +54,8 @@ export const CANDIDATE_LABELS: Record<string, string> = {
 const UNLISTED_FIELDS: Record<string, string> = {
   refInlBudgetLsb: 'INL budget for the reference source', twoRConstruction: '2R construction', temperatureK: 'temperature',
   latchDelayS: 'latch delay', bufferOffsetSigmaV: 'σ of buffer offset', tapChargeFraction: 'share of tap switch charge reaching the output',
-  legChargeFraction: 'share of leg switch charge reaching the output'
+  legChargeFraction: 'share of leg switch charge reaching the output', envelopePoints: 'points per chart series',
+  confidence: 'confidence of the yield intervals', inlDefinition: 'INL line (end-point or best-fit)', topologies: 'architectures to compare'
 }
 
 /** The words for each fact. */

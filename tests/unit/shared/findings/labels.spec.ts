@@ -3,6 +3,7 @@ import { FACT_FIELDS, FACTS } from '#shared/findings/fields'
 import { conditionWords } from '#shared/findings/conditionWords'
 import { factLabel, metricLabel } from '#shared/findings/labels'
 import { BUILT_IN_PACKS } from '#shared/findings/registry'
+import { IMPORT_COLUMNS } from '#shared/io/specImport'
 
 // No internal names on screen (issue 14; common practice, no source): every field a rule can read
 // has words of its own, which are never the camelCase contract name.
@@ -37,6 +38,15 @@ describe('conditionWords', () => {
     for (const rule of BUILT_IN_PACKS[0]!.rules) {
       const text = conditionWords(rule.conditions)
       expect(text, rule.id).not.toMatch(/\$\.|\b[a-z]+[A-Z][a-zA-Z]*\b/)
+    }
+  })
+})
+
+describe('import column labels', () => {
+  it('gives every CSV import column words of its own (shown on the import page)', () => {
+    for (const c of IMPORT_COLUMNS) {
+      const label = c.def?.label ?? metricLabel(c.key)
+      expect(label, c.name).not.toBe(c.key)
     }
   })
 })

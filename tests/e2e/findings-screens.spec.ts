@@ -39,7 +39,7 @@ describe.each([1280, 390])('handbook and rule-pack editor at %i px', (width) => 
     const page = await signedInPage(browser, baseUrl(), DEMO.admin, '/rule-packs/new', width)
     const listed = page.getByTestId('pack-rules')
     await listed.waitFor()
-    expect(await listed.textContent()).toContain('When Result: total area is above 0.01')
+    expect(await listed.textContent()).toContain('When Result: total area is above 0.01 mm²')
     expect(await listed.textContent()).toContain('Risk')
     expect(await listed.textContent()).not.toContain('greaterThan')
     expect(await page.getByTestId('pack-json').isVisible()).toBe(false)

@@ -27,7 +27,7 @@ describe('fact labels', () => {
 // condition of the built-in pack must read without a camelCase contract name or operator.
 describe('conditionWords', () => {
   it('reads a stored condition in the interface\'s words', () => {
-    expect(conditionWords({ fact: 'metrics', path: '$.totalAreaMm2', operator: 'greaterThan', value: 0.01 })).toBe('Result: total area is above 0.01')
+    expect(conditionWords({ fact: 'metrics', path: '$.totalAreaMm2', operator: 'greaterThan', value: 0.01 })).toBe('Result: total area is above 0.01 mm²')
     expect(conditionWords({ all: [
       { fact: 'spec', path: '$.monotonicRequired', operator: 'equal', value: true },
       { fact: 'metrics', path: '$.unitWidthUm', operator: 'lessThan', value: { fact: 'process', path: '$.minWidthUm' } }

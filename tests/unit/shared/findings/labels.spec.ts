@@ -50,3 +50,13 @@ describe('import column labels', () => {
     }
   })
 })
+
+describe('built-in rule texts', () => {
+  it('name no contract field outside their placeholders', () => {
+    for (const r of BUILT_IN_PACKS[0]!.rules) {
+      for (const text of [r.title, r.explanation, r.action, r.threshold.note]) {
+        expect(text.replace(/\{[^}]*\}/g, ''), r.id).not.toMatch(/\b[a-z]+[A-Z]\w*\b/)
+      }
+    }
+  })
+})

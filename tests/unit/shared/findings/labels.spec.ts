@@ -3,7 +3,7 @@ import { FACT_FIELDS, FACTS } from '#shared/findings/fields'
 import { conditionWords } from '#shared/findings/conditionWords'
 import { factLabel, metricLabel } from '#shared/findings/labels'
 import { BUILT_IN_PACKS } from '#shared/findings/registry'
-import { IMPORT_COLUMNS } from '#shared/io/specImport'
+import { IMPORT_COLUMNS } from '#shared/io/importColumns'
 
 // No internal names on screen (issue 14; common practice, no source): every field a rule can read
 // has words of its own, which are never the camelCase contract name.

@@ -11,3 +11,14 @@ export function candidateLabel(c: EvaluateCandidate): string {
     default: return `Two-stage string, ${extra.buffered ? 'buffered' : 'unbuffered'}`
   }
 }
+
+/** The same name from a candidate id alone (`segmented-m4` → "Segmented, 4 unary bits"); an unknown id is returned as it is. */
+export function candidateLabelOfId(id: string): string {
+  const fixed: Record<string, string> = {
+    'string-direct': 'String, direct decode', 'string-tree': 'String, tree decode', 'r2r-voltage': 'R-2R, voltage mode',
+    'r2r-current': 'R-2R, current mode', 'two-stage-buffered': 'Two-stage string, buffered', 'two-stage-unbuffered': 'Two-stage string, unbuffered'
+  }
+  const m = /^segmented-m(\d+)$/.exec(id)
+  if (m) return `Segmented, ${m[1]} unary bit${m[1] === '1' ? '' : 's'}`
+  return fixed[id] ?? id
+}

@@ -30,6 +30,17 @@ export function smallestUnaryForDnlGlitch(candidates: readonly EvaluateCandidate
   return ok.length ? Math.min(...ok.map(c => c.unaryBits!)) : null
 }
 
+/**
+ * The most negative step of the nominal circuit (signed DNL, LSB): the minimum of the engine's own
+ * per-code DNL series (`linearity.perCode.dnlLsb`, min/max-decimated, so every code's minimum is kept).
+ * ≤ −1 means the nominal transfer falls or stalls at that step, whatever the mismatch.
+ */
+export function nominalDnlMinLsb(c: EvaluateCandidate): number | null {
+  const perCode = (c.linearity as { perCode?: { dnlLsb?: { min?: readonly (number | null)[] } } }).perCode
+  const mins = (perCode?.dnlLsb?.min ?? []).filter((v): v is number => typeof v === 'number' && Number.isFinite(v))
+  return mins.length ? Math.min(...mins) : null
+}
+
 /** Current-mode I-V amplifier noise gain 1 + R_fb/R_out(code) over the codes (R_fb = R, handbook §2.3). */
 function noiseGain(c: EvaluateCandidate, m: FactValues) {
   if (c.topology !== 'r2r-current') return { noiseGainMin: null, noiseGainMax: null, noiseGainSpan: null }
@@ -47,6 +58,7 @@ function derived(c: EvaluateCandidate, input: EvaluateInput, smallestUnary: numb
   const shortfall = (y: unknown) => (n(y) === null ? null : Math.max(0, s.yieldTarget - n(y)!))
   return {
     binaryBits: binaryBits(c, s.bits),
+    lsbV: s.vrefV / 2 ** s.bits,
     elementCount: (n(m.resistorCount) ?? 0) + (n(m.switchCount) ?? 0),
     areaToBudget: ratio(n(m.totalAreaMm2), s.areaBudgetMm2),
     resistorAreaToBudget: ratio(n(m.resistorAreaMm2), s.areaBudgetMm2),
@@ -60,6 +72,7 @@ function derived(c: EvaluateCandidate, input: EvaluateInput, smallestUnary: numb
     dnlYieldShortfall: shortfall(m.dnlYield),
     monotonicShortfall: shortfall(m.monotonicYield),
     dnlWorstCaseLsb: n(m.dnlSigmaLsb) === null ? null : 3 * n(m.dnlSigmaLsb)! + Math.abs(n(m.systematicDnlLsb) ?? 0),
+    systematicDnlMinLsb: nominalDnlMinLsb(c),
     systematicDnlToTarget: ratio(Math.abs(n(m.systematicDnlLsb) ?? 0), s.dnlTargetLsb),
     loadGainErrorLsb: rl === null || rout === null || c.topology === 'r2r-current' ? null : (rout / (rout + rl)) * 2 ** s.bits,
     ...noiseGain(c, m),

@@ -21,9 +21,9 @@ export const METRIC_FIELDS = [
 
 /** Quantities the findings runner derives from spec, process and metrics (see facts.ts). */
 export const DERIVED_FIELDS = [
-  'binaryBits', 'elementCount', 'areaToBudget', 'resistorAreaToBudget', 'matchingLimited', 'glitchToLimit',
+  'binaryBits', 'lsbV', 'elementCount', 'areaToBudget', 'resistorAreaToBudget', 'matchingLimited', 'glitchToLimit',
   'majorCarryToLimit', 'updateRateRatio', 'refPowerToBudget', 'refSourceToMax', 'inlYieldShortfall',
-  'dnlYieldShortfall', 'monotonicShortfall', 'dnlWorstCaseLsb', 'systematicDnlToTarget', 'loadGainErrorLsb',
+  'dnlYieldShortfall', 'monotonicShortfall', 'dnlWorstCaseLsb', 'systematicDnlMinLsb', 'systematicDnlToTarget', 'loadGainErrorLsb',
   'noiseGainMin', 'noiseGainMax', 'noiseGainSpan', 'smallestUnaryForDnlGlitch', 'isSmallestUnaryForDnlGlitch'
 ] as const
 

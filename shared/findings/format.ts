@@ -29,6 +29,7 @@ export const FORMATS: Record<string, Formatter> = {
   hz: num(v => formatSi(v, 'Hz')),
   vs: num(v => formatSi(v, 'V·s')),
   f: num(v => formatSi(v, 'F')),
+  c: num(v => formatSi(v, 'C')),
   text: v => (v === null || v === undefined ? '—' : String(v))
 }
 

@@ -6,16 +6,21 @@ export const DYNAMICS: HandbookSection[] = [
     id: '5',
     title: 'Glitch: a first-order model for ranking',
     body: [
-      'Count what switches at a transition a → b: a binary section toggles one switch per changed bit, a thermometer section one element per leg turned on or off, and a directly decoded string always two (one tap off, one on), which is why strings glitch little and evenly.',
+      'Count what switches at a transition a → b: a binary section toggles one switch per changed bit, a thermometer section one element per leg turned on or off, and a directly decoded string always two (one tap off, one on), so a string has almost no skew glitch and its glitch hardly changes with the code.',
       'Skew term. If the elements turning on and those turning off switch Δt apart, the output spends Δt at a wrong level. Against an ideal step at the mean instant, the area is half the summed weights of both groups times V_LSB times |Δt|, and zero when only one group moves. At a binary major carry this is about half the full scale times Δt; segmenting with M unary bits cuts it by about 2^(M−1).',
       'Charge term. Each switch dumps some charge on its node; through the node\'s resistance R_out it becomes an area α·q·R_out, independent of the node capacitance. α is the share that reaches the output: near 1 for a string\'s tap switch, small for ladder legs that sit on the reference or ground.',
+      'That is why a string, despite its two switches, often shows the largest glitch in a comparison: its output resistance is large (a quarter of the whole string at mid-scale, §2.1), and the tap switch sits right on the output. A 10-bit string of 10 kΩ units peaks near 2.6 MΩ, so every femtocoulomb reaching the output is about 2.6 nV·s; with a binary-tree decoder several switches in the path toggle, and tens of nV·s are the expected result, not an error of the model. A ladder\'s legs swing between low-impedance nodes and its output resistance is R or less, so the same charge costs it a tiny fraction of that. The cures differ accordingly: a string needs less charge (smaller or complementary tap switches, half-size dummies that cancel the charge) or a lower resistance for it to leave through (smaller units, an output buffer at the tap), while a binary ladder needs unary MSBs and tighter timing against its skew term.',
       'Rungwise adds both terms for each transition and reports the worst, with the major carry and the segment boundaries always included. Break-before-make gaps and unsynchronised tree decoders are not modelled and are flagged for simulation.'
     ],
     formulas: [
       { text: 'GI_skew ≈ ½ · (W_on + W_off) · V_LSB · |Δt|   (both groups non-empty)', label: 'derived' },
-      { text: 'GI_q ≈ α · n_toggled · q_switch · R_out', label: 'derived' }
+      { text: 'GI_q ≈ α · n_toggled · q_switch · R_out', label: 'derived' },
+      { text: 'string: R_out,max ≈ 2^N · R / 4  ⇒  GI_q ≈ α · n_toggled · q_switch · 2^N · R / 4', label: 'derived' }
     ],
-    sources: ['R. J. Baker, CMOS Circuit Design, Layout, and Simulation: skewed lower bits briefly applying the all-zeros code at mid-scale. W. Kester (ed.), Data Conversion Handbook: the string\'s low, code-independent glitch.'],
+    sources: [
+      'R. J. Baker, CMOS Circuit Design, Layout, and Simulation: skewed lower bits briefly applying the all-zeros code at mid-scale. W. Kester (ed.), Data Conversion Handbook: the string\'s code-independent switching activity.',
+      'The charge term and the string\'s large impulse: derived here (charge into a resistance, independent of the capacitance). Complementary and dummy switches against charge injection: common practice, no source.'
+    ],
     cautions: ['Glitch figures rank architectures; the real glitch depends on driver timing, layout, supply and reference bounce, digital feedthrough and the output buffer.']
   },
   {
@@ -24,11 +29,13 @@ export const DYNAMICS: HandbookSection[] = [
     body: [
       'A single-pole output settles a full-scale step to ±½ LSB in (N + 1)·ln 2 time constants: about 7.6 τ at 10 bits, 9.0 τ at 12 and 11.8 τ at 16. τ is the worst driving resistance into the load capacitance. The update-rate check adds the latch delay; a buffer adds its own slew and settling.',
       'With a voltage-mode ladder, a reference source resistance R_s drops the internal reference by R_s·I_REF(code). Since I_REF changes with the code, that becomes INL growing roughly with 2^N·N·R_s/R. Rungwise computes the largest R_s that keeps this inside the INL budget from the exact reference current of every code, instead of a fixed rule. The same current steps must also settle on the reference within an update period.',
-      'Strings and current-mode ladders load the reference with a constant resistance, so R_s only scales their gain.'
+      'Strings and current-mode ladders load the reference with a constant resistance, so R_s only scales their gain.',
+      'The same exact reference current gives the reference power: V_REF·I_REF at the heaviest code (the figure checked against the power budget) and averaged over all codes. It falls as 1/R and, in a segmented converter, grows with the 2^M − 1 unary legs in parallel; a string draws V_REF²/(2^N·R) at every code.'
     ],
     formulas: [
       { text: 't_settle = τ · (N + 1) · ln 2,  τ = R_out,max · C_load', label: 'common-practice' },
-      { text: 'f_update,max ≈ 1 / (t_settle + t_latch)', label: 'common-practice' }
+      { text: 'f_update,max ≈ 1 / (t_settle + t_latch)', label: 'common-practice' },
+      { text: 'P_ref,max = V_REF · max_k I_REF(k)', label: 'derived' }
     ],
     sources: ['Single-pole settling (standard), common practice. Reference-source sensitivity derived here with the exact reference current.'],
     cautions: ['The reference buffer, its decoupling and the package and board path must be verified; the limits here assume an ideal or first-order reference.']

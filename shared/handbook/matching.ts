@@ -104,5 +104,47 @@ export const MATCHING: HandbookSection[] = [
     ],
     sources: ['Derived here from §4.1–§4.5; the overhead factor is common practice.'],
     cautions: ['Trimming or calibration changes the picture: fewer, larger elements are easier to trim, and a calibrated design can use far smaller units.']
+  },
+  {
+    id: '4.7',
+    title: 'Switch on-resistance in ladders and how designers compensate it',
+    body: [
+      'Every leg of an R-2R ladder (voltage or current mode) and every leg of a segmented converter reaches the reference or ground through a switch. Its on-resistance R_on adds to the leg, so the leg is no longer exactly 2R and the binary weights drift. The error is systematic: every part made has it, and no amount of matching area removes it. It grows with 2^N·R_on/R (§4.4 gives the mid-scale step), and when the step reaches −1 LSB the nominal circuit itself is non-monotonic (§4.8). Rungwise\'s exact solve includes R_on in every leg, so the systematic INL and DNL it reports already contain it.',
+      'Three compensations are standard. Absorb the switch: draw each leg resistor as 2R − R_on, so leg plus switch is 2R again. Match it with a dummy: keep the legs at 2R + R_on, put a dummy switch (always on) in the termination, and make each series arm R + R_on/2; every node then sees the same resistance both ways and the weights are binary again. Scale the switch widths with the current each leg carries, so each switch drops the same share of its leg (used mostly in current-mode ladders, where leg currents are fixed). A dummy in the termination alone does not fix the weights.',
+      'What remains after any of these is R_on\'s departure from the value it was compensated for: its spread over process corners and temperature relative to the resistor (a MOS switch moves far more with temperature than a poly resistor), the difference between the switch to the reference and the switch to ground, and the mismatch between switches, which falls with the switch\'s area like any device. Wider switches lower all of these but cost area and inject more charge (glitch, §5).',
+      'A working rule: give the switches no more than about a tenth of the INL and DNL budget, and size them (or choose R) so that the residual fits.'
+    ],
+    formulas: [
+      { text: 'absorbed: R_leg = 2R − R_on  ⇒  R_leg + R_on = 2R', label: 'derived' },
+      { text: 'dummy: legs 2R + R_on, series arms R + R_on/2, termination 2R + R_on', label: 'derived' },
+      { text: 'residual ≈ 2^N · ΔR_on / (6R),  ΔR_on = spread (process, temperature) + mismatch of R_on', label: 'derived' },
+      { text: 'switch share of the error budget ≈ 1/10', label: 'common-practice' }
+    ],
+    sources: [
+      'Both exact compensations derived (every node again sees the same resistance toward both ends, so the weights are binary); the engine builds every handling (§11) and ngspice reproduces each exported design to 1e-9 of full scale (tests/unit/shared/core/switch-design.spec.ts). The uncompensated 8-bit case (R = 10 kΩ, R_on = 50 Ω: DNL about −0.21 LSB) is checked in the rule tests against the §4.4 estimate.',
+      'Scaled switch widths in current-mode ladders and the tenth-of-the-budget rule: common practice, no source.',
+      'On-resistance spread with temperature larger than a poly resistor\'s, and mismatch falling with area: from memory.'
+    ],
+    cautions: ['The engine models the spread of R_on as two corners (± the process\'s switch spread) and its mismatch as a random σ falling with width (§11); check the residual after compensation against the foundry\'s switch models over corners and temperature.']
+  },
+  {
+    id: '4.8',
+    title: 'Systematic errors: the nominal circuit, loading and buffer offset',
+    body: [
+      'Rungwise solves the nominal circuit (no mismatch) exactly at every code and reports its INL and DNL as the systematic part. It contains every deterministic effect the solver models: switch on-resistance (§4.7), one string loading another in an unbuffered two-stage string (§2.5), and, when the spec names a load resistance, the divider between the output resistance and that load. The per-code chart of nominal DNL shows where each systematic step sits.',
+      'A nominal step at or below −1 LSB means the output falls (or stalls) when the code rises in every part made: a monotonicity requirement then fails outright, whatever the yield figures say, and the findings report it as failing the spec rather than as a risk.',
+      'Loaded INL is the nominal INL with the load resistance R_L on the output. A string\'s output resistance changes with the code (largest at mid-scale), so R_out(k)/(R_out(k) + R_L) bends the transfer into a bow; an R-2R ladder\'s output resistance is the same at every code, so the load only scales the gain. The cure is an output buffer or a much larger load.',
+      'In a buffered two-stage string the two buffers that copy the segment ends onto the fine string each have an offset. Their difference adds directly to the step at every coarse-segment boundary; it is random from part to part, so it enters the DNL and monotonic yields with σ √2·σ_offset, and no resistor area reduces it. A larger input pair, offset trim or auto-zero lowers it.'
+    ],
+    formulas: [
+      { text: 'DNL_nominal(k) ≤ −1 LSB  ⇒  not monotonic at step k → k + 1', label: 'published' },
+      { text: 'V_loaded(k) = V(k) · R_L / (R_out(k) + R_L)', label: 'derived' },
+      { text: 'σ_DNL,boundary = √2 · σ_offset / V_LSB   (two independent buffer offsets)', label: 'derived' }
+    ],
+    sources: [
+      'Monotonicity from the DNL definition: IEEE Std 1658-2011, from memory for the clause.',
+      'Loaded transfer and the boundary offset: derived here; the loaded INL comes from the same exact nodal solve with the load added.'
+    ],
+    cautions: ['A buffer adds its own offset drift, noise and settling; the two-stage model takes its offset as a random σ only.']
   }
 ]

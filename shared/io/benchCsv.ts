@@ -1,10 +1,13 @@
 /**
  * Bench data: a measured transfer as CSV, one line per code (`code,voltage` or `code,current`).
- * A first line with words is a header; `#` lines and empty lines are skipped. Every problem is
- * reported with its line number; the file is valid only when it has exactly the codes
+ * Columns are separated by commas, semicolons or tabs, and with a semicolon or tab numbers may use
+ * a decimal comma (benchFormat.ts). A first line with words is a header; `#` lines and empty lines
+ * are skipped. Every problem is reported with its line number (one message for a problem repeated
+ * on many lines); the file is valid only when it has exactly the codes
  * 0 … 2^N − 1 of the study's resolution, each once.
  */
 import { readCsvRecords, type CsvRecord } from './csv'
+import { benchFormat, codeRanges, foldRepeated, numberText, type BenchFormat } from './benchFormat'
 import { dnlAbsLsb, inlAbsLsb, linearityFromLevels, newLinearityResult, type InlDefinition, type LinearityResult } from '../core/stats/linearity'
 
 export interface BenchLineError { line: number | null, message: string }
@@ -34,21 +37,30 @@ function quantityOf(name: string): BenchQuantity | null {
 /** Parses and checks a bench file for a study of `bits` bits. */
 export function parseBenchCsv(text: string, bits: number, expected: BenchQuantity = 'voltage'): { ok: true, value: BenchParsed } | { ok: false, errors: BenchLineError[], total: number } {
   const errors: BenchLineError[] = []
-  const fail = () => ({ ok: false as const, errors: errors.slice(0, MAX_LISTED_BENCH_ERRORS), total: errors.length })
+  const fail = () => {
+    const folded = foldRepeated(errors)
+    return { ok: false as const, errors: folded.slice(0, MAX_LISTED_BENCH_ERRORS), total: folded.length }
+  }
   if (text.length > MAX_BENCH_CHARS) {
     errors.push({ line: null, message: `the file has ${text.length} characters; at most ${MAX_BENCH_CHARS} are read` })
     return fail()
   }
+  const found = benchFormat(text)
+  if (!found.ok) {
+    errors.push({ line: null, message: found.message })
+    return fail()
+  }
+  const format: BenchFormat = found.value
   let records: CsvRecord[]
   try {
-    records = readCsvRecords(text)
+    records = readCsvRecords(text, format.delimiter)
   } catch (e) {
     errors.push({ line: null, message: `is not readable CSV: ${(e as Error).message}` })
     return fail()
   }
   const quantity: BenchQuantity = expected
   const first = records[0]
-  if (first && first.record.some(c => c !== '' && !NUMBER.test(c))) {
+  if (first && first.record.some(c => c !== '' && !NUMBER.test(numberText(c, format)))) {
     records = records.slice(1)
     const named = quantityOf(first.record[1] ?? '')
     if (!/code/i.test(first.record[0] ?? '') || named === null) {
@@ -87,7 +99,8 @@ export function parseBenchCsv(text: string, bits: number, expected: BenchQuantit
       errors.push({ line, message: `the ${quantity} of code ${code} is missing` })
       continue
     }
-    if (!NUMBER.test(valueText)) {
+    const value = numberText(valueText, format)
+    if (!NUMBER.test(value)) {
       errors.push({ line, message: `the ${quantity} of code ${code} must be a number (got "${valueText}")` })
       continue
     }
@@ -97,12 +110,11 @@ export function parseBenchCsv(text: string, bits: number, expected: BenchQuantit
       continue
     }
     seenOn.set(code, line)
-    levels[code] = Number(valueText)
+    levels[code] = Number(value)
   }
   if (errors.length === 0 && seenOn.size !== n) {
     const missing = levels.flatMap((v, k) => (Number.isNaN(v) ? [k] : []))
-    const shown = missing.slice(0, 10).join(', ')
-    errors.push({ line: null, message: `the file has ${seenOn.size} codes; a ${bits}-bit study needs all ${n} codes 0 to ${n - 1}; missing ${shown}${missing.length > 10 ? ` and ${missing.length - 10} more` : ''}` })
+    errors.push({ line: null, message: `the file has ${seenOn.size} codes; a ${bits}-bit study needs all ${n} codes 0 to ${n - 1}: ${missing.length === 1 ? 'code' : 'codes'} ${codeRanges(missing)} missing` })
   }
   if (errors.length === 0 && levels[n - 1] === levels[0]) {
     errors.push({ line: seenOn.get(n - 1) ?? null, message: `the ${quantity} of the last code equals that of code 0; there is no transfer to measure` })

@@ -10,9 +10,9 @@ export function csvDelimiter(text: string): string {
 
 /**
  * CSV lines with the line each ends on (1-based): comma, tab or semicolon separated (one per
- * file), `#` lines and empty lines skipped, cells trimmed, ragged lines kept for the caller to report.
+ * file; `delimiter` when the caller found it otherwise), `#` lines and empty lines skipped, cells trimmed, ragged lines kept for the caller to report.
  * @throws csv-parse's error (with its line) for unreadable text such as an unclosed quote
  */
-export function readCsvRecords(text: string): CsvRecord[] {
-  return parse(text, { comment: '#', skip_empty_lines: true, relax_column_count: true, bom: true, info: true, trim: true, delimiter: csvDelimiter(text) }) as unknown as CsvRecord[]
+export function readCsvRecords(text: string, delimiter = csvDelimiter(text)): CsvRecord[] {
+  return parse(text, { comment: '#', skip_empty_lines: true, relax_column_count: true, bom: true, info: true, trim: true, delimiter }) as unknown as CsvRecord[]
 }

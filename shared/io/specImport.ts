@@ -4,12 +4,12 @@
  * its allowed range in the units shown. Pure; the server validates again before it writes.
  */
 import { readCsvRecords, type CsvRecord } from './csv'
+import { IMPORT_COLUMNS, IMPORT_SCHEMAS, type ImportColumn } from './importColumns'
 import { z } from 'zod'
-import { evaluateInputSchema, evaluateOptionsSchema, evaluateProcessSchema, evaluateSpecSchema, type EvaluateInput } from '../core/contract/evaluate'
+import { evaluateInputSchema, type EvaluateInput } from '../core/contract/evaluate'
 import { formatIssues, type FormattedIssue } from '../core/contract/errors'
 import { ENGINE_VERSION } from '../core/version'
 import { readField } from '../schemas/fieldValues'
-import { FIELDS, type FieldDef, type FieldSection } from '../schemas/fields'
 import { studyCreateSchema } from '../schemas/study'
 import { isStudyDocument, readStudyDocument, type StudyDocumentRead } from './studyDocument'
 
@@ -35,15 +35,7 @@ export interface ImportPreview {
   document: StudyDocumentRead | null
 }
 
-const SCHEMAS = { spec: evaluateSpecSchema, process: evaluateProcessSchema, options: evaluateOptionsSchema } as const
-const SECTIONS: FieldSection[] = ['spec', 'process', 'options']
-
-export interface ImportColumn { name: string, section: FieldSection, key: string, def: FieldDef | null }
-
-/** Every column a CSV may have after `title` and `blockName`: each engine field, by its contract name. */
-export const IMPORT_COLUMNS: ImportColumn[] = SECTIONS.flatMap(section => Object.keys(SCHEMAS[section].shape).map(key => ({
-  name: key, section, key, def: FIELDS.find(f => f.section === section && f.key === key) ?? null
-})))
+const SCHEMAS = IMPORT_SCHEMAS
 
 const BY_NAME = new Map(IMPORT_COLUMNS.map(c => [c.name.toLowerCase(), c]))
 const TITLE_NAMES = new Set(['title'])

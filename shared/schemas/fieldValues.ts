@@ -1,6 +1,6 @@
 import type { z } from 'zod'
 import { evaluateOptionsSchema, evaluateProcessSchema, evaluateSpecSchema } from '../core/contract/evaluate'
-import { formatQuantity, parseQuantity } from '../utils/units'
+import { formatQuantity, parseQuantity, readBack } from '../utils/units'
 import { sectionFields, type FieldDef, type FieldSection } from './fields'
 
 /** What a field holds while it is being edited: text, a flag or a list of choices. */
@@ -76,6 +76,16 @@ export function readField(def: FieldDef, entry: FieldEntry): FieldResult {
     return { ok: false, message: `must be ${def.kind === 'integer' ? 'an integer ' : ''}${range} (got ${got})` }
   }
   return { ok: false, message: checked.error.issues[0]?.message ?? 'is not valid' }
+}
+
+/**
+ * What a typed entry reads as, for showing back beside the field so nothing is silently misread
+ * (`10k` → "10 kΩ"; a bare `m` adds "m read as milli …"); null for non-quantities and unreadable text.
+ */
+export function fieldReadBack(def: FieldDef, entry: FieldEntry): string | null {
+  if (def.kind !== 'quantity' || typeof entry !== 'string' || entry.trim() === '') return null
+  if ((def.nullWord && entry.trim().toLowerCase() === def.nullWord) || (def.autoWord && entry.trim().toLowerCase() === def.autoWord)) return null
+  return readBack(entry, def.units)
 }
 
 /** Writes a stored value back as the entry the form shows (normalised units). */

@@ -1,5 +1,6 @@
 import { create, createUnitDependencies, unitDependencies, type Unit } from 'mathjs'
 import { formatNumber, formatSi } from './format'
+import { bareScale, spiceRewrite } from './spiceUnits'
 
 /**
  * Engineering notation typed the way engineers write it (`2.5 V`, `10 kΩ`, `1 MS/s`, `0.02 mm^2`,
@@ -29,7 +30,8 @@ export interface UnitSpec {
   example: string
 }
 
-export type ParseResult = { ok: true, value: number } | { ok: false, message: string }
+/** A read value, with a note when the reading needs saying (a bare `m` taken as milli). */
+export type ParseResult = { ok: true, value: number, note?: string } | { ok: false, message: string }
 
 const REWRITES: [RegExp, string][] = [
   [/[\u00B5\u03BC]/g, 'u'], // micro sign and Greek mu
@@ -71,13 +73,7 @@ function isPlain(u: Unit): boolean {
   return u.units.length === 0
 }
 
-/**
- * Parses `text` into the value of a field in its contract unit. A bare number is taken in that
- * unit; a number with units must have the field's dimension (`2 kohm` is no voltage).
- */
-export function parseQuantity(text: string, spec: UnitSpec): ParseResult {
-  const normal = normaliseUnitText(text)
-  if (normal === '') return { ok: false, message: `is required: ${spec.quantity}, e.g. ${spec.example}` }
+function parseMathjs(text: string, normal: string, spec: UnitSpec): ParseResult {
   const parsed = tryUnit(normal)
   if (!parsed || parsed.value === null || !Number.isFinite(parsed.value)) {
     return { ok: false, message: `must be ${spec.quantity} written as a number and a unit, e.g. ${spec.example} (got "${text.trim()}")` }
@@ -89,6 +85,45 @@ export function parseQuantity(text: string, spec: UnitSpec): ParseResult {
     return { ok: false, message: `must be ${spec.quantity} in ${spec.symbol || 'plain numbers'}, e.g. ${spec.example} (got "${text.trim()}")` }
   }
   return { ok: true, value: round12(parsed.value / unitScale(spec.unit)) }
+}
+
+/** The SPICE-style reading of an entry mathjs refused (see spiceUnits.ts), or null when it is not one. */
+function parseSpice(text: string, normal: string, spec: UnitSpec): ParseResult | null {
+  const rewrite = spiceRewrite(normal)
+  if (rewrite.refusal) return { ok: false, message: `must be ${spec.quantity}, e.g. ${spec.example}: "${text.trim()}" ${rewrite.refusal}` }
+  if (rewrite.text === null) return null
+  const [number, unit] = rewrite.text.split(' ') as [string, string]
+  const factor = bareScale(unit)
+  let result: ParseResult
+  if (factor === null) result = parseMathjs(text, rewrite.text, spec)
+  else if (!spec.prefixed) return { ok: false, message: `must be ${spec.quantity} in ${spec.symbol || 'plain numbers'} without a scale letter, e.g. ${spec.example} (got "${text.trim()}")` }
+  else result = { ok: true, value: round12((Number(number) * factor) / unitScale(spec.unit)) }
+  return result.ok && rewrite.note ? { ...result, note: rewrite.note } : result
+}
+
+/**
+ * Parses `text` into the value of a field in its contract unit. A bare number is taken in that
+ * unit; a number with units must have the field's dimension (`2 kohm` is no voltage). Entries
+ * mathjs cannot read in that dimension get a second reading as SPICE-style values (`10k`,
+ * `4.7K`, `1meg`, `2.5 v`, `10 Kohm`, `50 pVs`).
+ */
+export function parseQuantity(text: string, spec: UnitSpec): ParseResult {
+  const normal = normaliseUnitText(text)
+  if (normal === '') return { ok: false, message: `is required: ${spec.quantity}, e.g. ${spec.example}` }
+  const first = parseMathjs(text, normal, spec)
+  if (first.ok) return first
+  return parseSpice(text, normal, spec) ?? first
+}
+
+/**
+ * What the interface shows back for an entry, so nothing is silently misread: the value as read,
+ * normalised (`10k` → "10 kΩ"), with the note when one applies; null when the entry does not read.
+ */
+export function readBack(text: string, spec: UnitSpec): string | null {
+  const r = parseQuantity(text, spec)
+  if (!r.ok) return null
+  const shown = formatQuantity(r.value, spec)
+  return r.note ? `${shown} (${r.note})` : shown
 }
 
 /** Writes a contract value normalised: `formatSi` with a prefix, or the contract unit as is. */

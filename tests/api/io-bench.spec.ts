@@ -50,7 +50,7 @@ describe('bench data upload', () => {
     ])
     expect(res.body.message).toMatch(/^text: bench\.csv: 3 problems, nothing was stored\. line 4: /)
     const short = await upload<Bad>(id, 'r2r-voltage', '0,0\n1,0.3\n2,0.6\n')
-    expect(short.body.data.lines).toEqual([{ line: null, message: 'the file has 3 codes; a 2-bit study needs all 4 codes 0 to 3; missing 3' }])
+    expect(short.body.data.lines).toEqual([{ line: null, message: 'the file has 3 codes; a 2-bit study needs all 4 codes 0 to 3: code 3 missing' }])
     expect(await benchCount()).toBe(before)
   })
 

@@ -30,7 +30,7 @@ describe('in and out', () => {
       const stamp = `${width}-${Date.now()}`
       await page.getByTestId('import-text').fill(`${HEADER}\n${row(`IO one ${stamp}`, '1.2 V')}\n${row(`IO two ${stamp}`, '90 V')}\n`)
       await page.getByTestId('import-check').click()
-      await expect.poll(() => page.getByTestId('import-issues-3').textContent()).toContain('Line 3, spec.vrefV: must be from 100 mV to 50 V (got 90 V)')
+      await expect.poll(() => page.getByTestId('import-issues-3').textContent()).toContain('Line 3, Reference voltage (column vrefV): must be from 100 mV to 50 V (got 90 V)')
       expect(await page.getByTestId('import-verdict').textContent()).toContain('1 of 2 rows have problems')
       expect(await page.getByTestId('import-create').isDisabled()).toBe(true)
       await expectAccessible(page)

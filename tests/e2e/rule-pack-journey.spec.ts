@@ -37,10 +37,16 @@ describe('admin adds a team rule, dry-runs it and sees it fire', () => {
     await form.getByLabel('Severity').selectOption('warn')
     await form.getByLabel('Title').fill('More switches than our layout allows')
     await form.getByLabel('Field').selectOption('switchCount')
-    await form.getByLabel('Operator').selectOption('greaterThan')
-    await form.getByLabel('Value (SI units)').fill('100')
+    await form.getByLabel('Comparison').selectOption('greaterThan')
+    await form.getByLabel('Value (SI units').fill('100')
     await form.getByLabel('Explanation').fill('{metrics.switchCount|int} switches, over our line of 100.')
-    await form.getByRole('button', { name: 'Add rule to the JSON' }).click()
+    await form.getByRole('button', { name: 'Add this rule to the pack' }).click()
+    // The rule in the interface's words: its severity word and the condition read as a sentence.
+    const listed = page.getByTestId('pack-rules').locator('[data-rule="switches-over-team-limit"]')
+    await expect.poll(() => listed.textContent()).toContain('Risk')
+    expect(await listed.textContent()).toContain('When Result: switches is above 100')
+    await page.screenshot({ path: `${ARTIFACTS}/rule-pack-editor.png`, fullPage: true })
+    await page.getByTestId('pack-stored').locator('summary').click()
     await expect.poll(() => page.getByTestId('pack-json').inputValue()).toContain('switches-over-team-limit')
     await expect.poll(() => page.getByTestId('pack-valid').textContent()).toContain('2 rules')
 
@@ -55,7 +61,8 @@ describe('admin adds a team rule, dry-runs it and sees it fire', () => {
     const fired = page.getByTestId('dry-run-result').locator('[data-rule="switches-over-team-limit"]').first()
     // the sample's 10-bit strings have 1024 and 2046 switches, segmented m = 7…9 more than 100
     await expect.poll(() => fired.textContent()).toContain('fires on')
-    expect(await fired.textContent()).toContain('string-direct')
+    expect(await fired.textContent()).toContain('String, direct decode')
+    expect(await fired.textContent()).toContain('More switches than our layout allows')
     await page.screenshot({ path: `${ARTIFACTS}/rule-pack-dry-run.png`, fullPage: true })
 
     await page.getByTestId('pack-enabled').check()

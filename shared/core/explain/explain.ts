@@ -44,9 +44,15 @@ const TIDY: [RegExp, string][] = [
   [/\bKinv\(/g, 'K⁻¹('], [/\bC2\(/g, 'C('], [/\babs\(([^()]*)\)/g, '|$1|'], [/ - /g, ' − '], [/\bpi\b/g, 'π']
 ]
 
-/** A mathjs rendering made readable: ·, √, ln, Φ, Φ⁻¹, K⁻¹, |x|, −, π. */
+/**
+ * The floor that keeps a logarithm finite in the computation (`exp(n·ln(max(x, 1e-300)))`) is not
+ * part of the formula a person reads: shown as the power it computes, (x)^n. Display only.
+ */
+const CLAMPED_POWER = /\bexp\(([^()]+?) · ln\(max\((.+), 1e-300\)\)\)/
+
+/** A mathjs rendering made readable: ·, √, ln, Φ, Φ⁻¹, K⁻¹, |x|, −, π, and no 1e-300 floor. */
 export function tidy(text: string): string {
-  return TIDY.reduce((t, [re, to]) => t.replace(re, to), text)
+  return TIDY.reduce((t, [re, to]) => t.replace(re, to), text).replace(CLAMPED_POWER, '($2)^$1')
 }
 
 function render(node: MathNode, names: Record<string, string>): string {

@@ -41,6 +41,15 @@ describe('ExplainMetric', () => {
     expect(wrapper.get('[data-testid="explain-reference"]').text()).toContain('§6 · common practice')
   })
 
+  it('names a metric by its label and gives a procedure\'s result its unit, never the contract name alone', async () => {
+    const key = (['refSourceMaxOhm', 'routMaxOhm', 'systematicInlLsb'] as const).find(k => trace[k]?.kind === 'procedure' && typeof trace[k]?.result === 'number')!
+    const wrapper = await mountSuspended(ExplainMetric, { props: { metric: key, trace, open: true } })
+    expect(wrapper.get('[data-testid="explain-toggle"]').text()).not.toContain(key)
+    expect(wrapper.get('[data-testid="explain-toggle"]').text()).toMatch(/^[▸▾]?\s*How was the [a-z]/)
+    // The unit follows from the contract name's SI suffix (DEVELOPERS.md: SI units in names).
+    expect(wrapper.get('[data-testid="explain-result"]').text()).toMatch(/(Ω|LSB)$/)
+  })
+
   it('opens the step an input came from inside the explanation', async () => {
     const wrapper = await mountSuspended(ExplainMetric, { props: { metric: 'settlingS', trace, open: true } })
     await wrapper.get('[data-input="tau"] button').trigger('click')
@@ -55,7 +64,7 @@ describe('ExplainLink', () => {
     expect(linked.find('[data-explain="noiseVrms"]').exists()).toBe(true)
     const plain = await mountSuspended(ExplainLink, { props: { metric: 'noiseVrms', trace: null } })
     expect(plain.find('[data-testid="explain-link"]').exists()).toBe(false)
-    expect(plain.get('code').text()).toBe('noiseVrms')
+    expect(plain.get('[data-metric]').text()).toBe('output noise')
   })
 })
 
@@ -69,9 +78,9 @@ describe('FindingsList with explanations', () => {
   it('turns the basis metrics of a finding into links to their explanations', async () => {
     const wrapper = await mountSuspended(FindingsList, { props: { findings: [finding], explanations: { [candidate.id]: trace } } })
     const links = wrapper.findAll('[data-testid="explain-link"]')
-    expect(links.map(l => l.text())).toEqual(['settlingS'])
+    expect(links.map(l => l.text())).toEqual(['settling time'])
     await links[0]!.trigger('click')
     expect(wrapper.find('[data-explain="settlingS"] [data-testid="explain-formula"]').text()).toBe('t_s = τ · ((N + 1) · ln(2))')
-    expect(wrapper.findAll('code[data-metric]').map(c => c.text())).toEqual(['settlingS', 'notAMetric'])
+    expect(wrapper.findAll('[data-metric]').map(c => c.text())).toEqual(['settling time', 'notAMetric'])
   })
 })

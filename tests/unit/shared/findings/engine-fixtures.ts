@@ -25,6 +25,7 @@ export const VARIANTS = {
   base: {},
   bits10: { spec: { bits: 10 } },
   fast: { spec: { updateRateHz: 1.2e6 } },
+  tooFast: { spec: { updateRateHz: 3e6 } },
   tinyArea: { spec: { areaBudgetMm2: 0.0003 } },
   refR: { spec: { refSourceOhm: 10, loadResistanceOhm: 1e6 } },
   noSwitchR: { process: { switchOhm: 0 } },
@@ -33,7 +34,10 @@ export const VARIANTS = {
   mcBase: { options: { trials: 400 } },
   mcSwitch: { process: { switchOhm: 400 }, options: { trials: 400 } },
   mcHugeSwitch: { process: { switchOhm: 3000 }, options: { trials: 400 } },
-  mcSwitchNoMono: { spec: { monotonicRequired: false }, process: { switchOhm: 400 }, options: { trials: 400 } }
+  mcSwitchNoMono: { spec: { monotonicRequired: false }, process: { switchOhm: 400 }, options: { trials: 400 } },
+  lowPower: { spec: { powerBudgetW: 1e-4 } },
+  bufferOffset: { process: { bufferOffsetSigmaV: 5e-3 }, options: { trials: 400 } },
+  bufferOffsetNoMono: { spec: { monotonicRequired: false }, process: { bufferOffsetSigmaV: 2e-3 }, options: { trials: 400 } }
 } satisfies Record<string, Change>
 export type Variant = keyof typeof VARIANTS
 

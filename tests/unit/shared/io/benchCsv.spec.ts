@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { benchSummary, parseBenchCsv } from '#shared/io/benchCsv'
+import { codeRanges } from '#shared/io/benchFormat'
 
 /**
  * Worked example, computed by hand from the published definitions (IEEE Std 1658-2011 as restated
@@ -43,13 +44,55 @@ describe('parseBenchCsv', () => {
 
   it('refuses a file that does not cover 0 … 2^N − 1', () => {
     const r = parseBenchCsv('code,voltage\n0,0\n1,1\n2,2\n', 2)
-    expect(r).toMatchObject({ ok: false, errors: [{ line: null, message: 'the file has 3 codes; a 2-bit study needs all 4 codes 0 to 3; missing 3' }] })
+    expect(r).toMatchObject({ ok: false, errors: [{ line: null, message: 'the file has 3 codes; a 2-bit study needs all 4 codes 0 to 3: code 3 missing' }] })
     expect(parseBenchCsv('code,voltage\n0,0\n1,1\n2,2\n3,3\n', 3)).toMatchObject({ ok: false, errors: [{ line: null }] })
   })
 
   it('refuses a bad header and a flat transfer', () => {
     expect(parseBenchCsv('when,where\n0,0\n1,1\n2,2\n3,3\n', 2)).toMatchObject({ ok: false, errors: [{ line: 1 }] })
     expect(parseBenchCsv('0,1\n1,1\n2,1\n3,1\n', 2)).toMatchObject({ ok: false, errors: [{ line: 4 }] })
+  })
+})
+
+// Decimal commas with a semicolon or tab separator are how spreadsheets in much of Europe write
+// CSV (common practice, no source); the expected levels are the same numbers written with points.
+describe('parseBenchCsv: separators, decimal commas and one message per problem', () => {
+  const levels = [0, 0.5, 1, 1.5]
+  it('reads semicolon and tab files with decimal commas', () => {
+    expect(parseBenchCsv('code;voltage\n0;0\n1;0,5\n2;1,0\n3;1,5\n', 2)).toEqual({ ok: true, value: { quantity: 'voltage', levels } })
+    expect(parseBenchCsv('code\tvoltage\n0\t0\n1\t0,5\n2\t1\n3\t1,5\n', 2)).toEqual({ ok: true, value: { quantity: 'voltage', levels } })
+    expect(parseBenchCsv('0;0\n1;5,0e-1\n2;1\n3;1,5\n', 2)).toEqual({ ok: true, value: { quantity: 'voltage', levels } })
+  })
+
+  it('says in one message which separator is expected when a comma file also has decimal commas', () => {
+    const lines = Array.from({ length: 4096 }, (_, k) => `${k},${Math.floor(k / 1000)},${k % 1000}`)
+    const r = parseBenchCsv(`code,voltage\n${lines.join('\n')}\n`, 12)
+    expect(r.ok).toBe(false)
+    if (r.ok) return
+    expect(r.total).toBe(1)
+    expect(r.errors).toEqual([{ line: null, message: expect.stringMatching(/decimal comma.*semicolon or a tab/) }])
+  })
+
+  it('folds a problem repeated on every line into one message with the lines as ranges', () => {
+    const lines = Array.from({ length: 4096 }, (_, k) => `${k},n/a`)
+    const r = parseBenchCsv(`code,voltage\n${lines.join('\n')}`, 12)
+    expect(r.ok).toBe(false)
+    if (r.ok) return
+    expect(r.total).toBe(1)
+    expect(r.errors[0]!.line).toBe(2)
+    expect(r.errors[0]!.message).toMatch(/^the voltage of code 0 must be a number \(got "n\/a"\); the same on 4095 more lines \(lines 3–4097\)$/)
+  })
+
+  it('lists missing codes by number as ranges', () => {
+    const present = Array.from({ length: 16 }, (_, k) => k).filter(k => !(k >= 3 && k <= 6) && k !== 9)
+    const r = parseBenchCsv(present.map(k => `${k},${k}`).join('\n'), 4)
+    expect(r).toMatchObject({ ok: false, errors: [{ line: null, message: 'the file has 11 codes; a 4-bit study needs all 16 codes 0 to 15: codes 3–6, 9 missing' }] })
+  })
+
+  it('writes code ranges (derived)', () => {
+    expect(codeRanges([12, 13, 14, 40, 77, 78])).toBe('12–14, 40, 77–78')
+    expect(codeRanges([1, 3, 5], 2)).toBe('1, 3 and 1 more ranges')
+    expect(codeRanges([])).toBe('')
   })
 })
 

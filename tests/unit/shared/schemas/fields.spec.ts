@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { evaluateInputSchema, evaluateOptionsSchema, evaluateProcessSchema, evaluateSpecSchema } from '../../../../shared/core/contract/evaluate'
 import { FIELDS, findField, sectionFields, type FieldDef } from '../../../../shared/schemas/fields'
-import { fieldRange, readField, readSection, writeSection, type SectionEntries } from '../../../../shared/schemas/fieldValues'
+import { fieldRange, fieldReadBack, readField, readSection, writeSection, type SectionEntries } from '../../../../shared/schemas/fieldValues'
 
 const field = (section: FieldDef['section'], key: string): FieldDef => {
   const def = findField(section, key)
@@ -72,6 +72,30 @@ describe('readField', () => {
     expect(read('spec', 'loadResistanceOhm', '')).toEqual({ ok: true, value: null })
     expect(read('process', 'unitOhm', 'auto')).toEqual({ ok: true, value: 'auto' })
     expect(read('process', 'unitOhm', '5 kΩ')).toEqual({ ok: true, value: 5000 })
+  })
+})
+
+// SPICE3 user's manual scale factors (K = 1e3, MEG = 1e6, M = milli, P = 1e-12), from memory.
+describe('readField with SPICE-style entries, shown back', () => {
+  it('reads the spellings engineers type and shows the value read', () => {
+    expect(read('process', 'unitOhm', '10k')).toEqual({ ok: true, value: 1e4 })
+    expect(read('process', 'unitOhm', '4.7K')).toEqual({ ok: true, value: 4700 })
+    expect(read('spec', 'loadResistanceOhm', '1meg')).toEqual({ ok: true, value: 1e6 })
+    expect(read('spec', 'loadCapacitanceF', '10p')).toEqual({ ok: true, value: 10e-12 })
+    expect(read('spec', 'vrefV', '2.5 v')).toEqual({ ok: true, value: 2.5 })
+    expect(read('spec', 'glitchLimitVs', '50 pVs')).toEqual({ ok: true, value: 50e-12 })
+    expect(read('spec', 'inlTargetLsb', '0.5 lsb')).toEqual({ ok: true, value: 0.5 })
+    expect(fieldReadBack(field('process', 'unitOhm'), '10 Kohm')).toBe('10 kΩ')
+    expect(fieldReadBack(field('spec', 'loadResistanceOhm'), '1meg')).toBe('1 MΩ')
+    expect(fieldReadBack(field('spec', 'vrefV'), '500m')).toMatch(/^500 mV \(m read as milli/)
+  })
+
+  it('refuses a bare M and shows nothing back for words and unreadable text', () => {
+    const r = read('spec', 'loadResistanceOhm', '1M')
+    expect(r.ok ? '' : r.message).toMatch(/ambiguous: SPICE reads a bare M as milli, SI as mega/)
+    expect(fieldReadBack(field('spec', 'loadResistanceOhm'), 'none')).toBeNull()
+    expect(fieldReadBack(field('process', 'unitOhm'), 'auto')).toBeNull()
+    expect(fieldReadBack(field('spec', 'vrefV'), '2.5 volts of joy')).toBeNull()
   })
 })
 

@@ -1,6 +1,6 @@
 import { evaluate } from 'mathjs'
 import { describe, expect, it } from 'vitest'
-import { formatQuantity, normaliseUnitText, parseQuantity, type UnitSpec } from '../../../../shared/utils/units'
+import { formatQuantity, normaliseUnitText, parseQuantity, readBack, type UnitSpec } from '../../../../shared/utils/units'
 
 const spec = (unit: string, symbol: string, prefixed: boolean, percent = false): UnitSpec =>
   ({ unit, quantity: 'a test quantity', symbol, prefixed, percent, example: '1' })
@@ -121,5 +121,88 @@ describe('formatQuantity', () => {
     const UM = spec('um', 'm', true)
     expect(formatQuantity(0.4, UM)).toBe('400 nm')
     expect(value('400 nm', UM)).toBeCloseTo(0.4, 12)
+  })
+})
+
+// SPICE-style entries: scale factors of the SPICE3 user's manual (T = 1e12, G = 1e9, MEG = 1e6,
+// K = 1e3, M = 1e-3, U = 1e-6, N = 1e-9, P = 1e-12, F = 1e-15, case insensitive), from memory;
+// unit words in any case mean the SI unit of the same name (BIPM SI Brochure, 9th edition).
+describe('parseQuantity: SPICE suffixes and case variants', () => {
+  const F = spec('F', 'F', true)
+  const VS = spec('V*s', 'V·s', true)
+  const UM = spec('um', 'm', true)
+  it.each([
+    ['10k', OHM, 1e4],
+    ['10K', OHM, 1e4],
+    ['4.7K', OHM, 4.7e3],
+    ['4.7k', OHM, 4.7e3],
+    ['1meg', OHM, 1e6],
+    ['1MEG', OHM, 1e6],
+    ['1Meg', OHM, 1e6],
+    ['2.2 meg', OHM, 2.2e6],
+    ['1megohm', OHM, 1e6],
+    ['10 kohm', OHM, 1e4],
+    ['10 Kohm', OHM, 1e4],
+    ['10Kohm', OHM, 1e4],
+    ['10 KOHM', OHM, 1e4],
+    ['10 Ohm', OHM, 10],
+    ['10 KΩ', OHM, 1e4],
+    ['1G', OHM, 1e9],
+    ['10p', F, 10e-12],
+    ['10P', F, 10e-12],
+    ['10pf', F, 10e-12],
+    ['10f', F, 10e-15],
+    ['2.5 v', VOLT, 2.5],
+    ['2.5v', VOLT, 2.5],
+    ['100m', VOLT, 0.1],
+    ['100u', VOLT, 100e-6],
+    ['5n', VOLT, 5e-9],
+    ['50 pVs', VS, 50e-12],
+    ['50pVs', VS, 50e-12],
+    ['50 pvs', VS, 50e-12],
+    ['1 nVs', VS, 1e-9],
+    ['0.5 lsb', LSB, 0.5],
+    ['0.5 Lsb', LSB, 0.5],
+    ['0.5lsb', LSB, 0.5],
+    ['1 khz', HZ, 1e3],
+    ['400n', UM, 400e-9]
+  ])('reads %s as %s in SI', (text, unit, expected) => {
+    const v = value(text, unit) * (unit.unit === 'um' ? 1e-6 : 1)
+    expect(v / expected).toBeCloseTo(1, 12)
+  })
+
+  it('says how a bare m was read, and a capital M with a unit', () => {
+    const r = parseQuantity('1m', OHM)
+    expect(r.ok && r.value).toBe(1e-3)
+    expect(r.ok && r.note).toMatch(/milli/)
+    expect(readBack('1m', OHM)).toBe('1 mΩ (m read as milli (10⁻³); write meg for mega)')
+    expect(readBack('1meg', OHM)).toBe('1 MΩ')
+    expect(readBack('10k', OHM)).toBe('10 kΩ')
+    const mega = parseQuantity('1 MOHM', OHM)
+    expect(mega.ok && mega.value).toBe(1e6)
+    expect(mega.ok && mega.note).toMatch(/mega.*SPICE would read milli/)
+  })
+
+  it('keeps mathjs readings first: 300K on a temperature is kelvin, 10 F is farads, 1 m on a length is a metre', () => {
+    expect(value('300K', spec('K', 'K', false))).toBe(300)
+    expect(value('10 F', spec('F', 'F', true))).toBe(10)
+    expect(value('1 m', spec('um', 'm', true))).toBe(1e6)
+  })
+
+  it.each([
+    ['1M', OHM, /ambiguous.*meg/],
+    ['1 M', OHM, /ambiguous/],
+    ['10x', OHM, /got "10x"/],
+    ['10 kV', OHM, /got "10 kV"/],
+    ['10 kk', OHM, /got "10 kk"/],
+    ['k', OHM, /got "k"/],
+    ['10 k ohm', OHM, /got "10 k ohm"/],
+    ['0.5 lsbs', LSB, /got "0.5 lsbs"/],
+    ['20m', MM2, /without a scale letter/],
+    ['50 pVs', VOLT, /got "50 pVs"/]
+  ])('refuses %s with a message', (text, unit, message) => {
+    const r = parseQuantity(text, unit)
+    expect(r.ok).toBe(false)
+    expect(r.ok ? '' : r.message).toMatch(message)
   })
 })

@@ -99,9 +99,14 @@ describe('registry definitions', () => {
       expect(f.spec.reference.section, f.spec.id).toMatch(/^§\d/)
       expect(labels.has(f.spec.reference.label), f.spec.id).toBe(true)
       const text = readableFormula(f.spec, f.node)
-      expect(text, f.spec.id).not.toMatch(/\*|sqrt\(|Phi\(/)
+      expect(text, f.spec.id).not.toMatch(/\*|sqrt\(|Phi\(|1e-300/)
       expect(text.startsWith(`${f.spec.output.symbol} = `), f.spec.id).toBe(true)
     }
+  })
+
+  it('shows the DNL yield as the power it computes, without the floor that keeps its logarithm finite (display only; §4.3 formula)', () => {
+    const f = allFormulas().find(x => x.spec.id === 'matching.dnl-yield')!
+    expect(readableFormula(f.spec, f.node)).toBe('Y_DNL = (2 · Φ(T_DNL / (a · σ_u)) − 1)^n')
   })
 
   it('refuses a definition whose expression uses an undeclared symbol or declares an unused one', () => {

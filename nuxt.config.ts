@@ -121,7 +121,9 @@ export default defineNuxtConfig({
         'frame-ancestors': ['\'none\''],
         'img-src': ['\'self\'', 'data:', 'blob:'],
         'object-src': ['\'none\''],
-        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\''],
+        // 'wasm-unsafe-eval' lets the preview worker compile the engine's Monte Carlo kernels (WebAssembly
+        // only; JavaScript eval stays refused): the live preview sizes candidates on a sample now.
+        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\'', '\'wasm-unsafe-eval\''],
         'script-src-attr': ['\'none\''],
         // apexcharts sets style attributes and injects its own <style> element at run time.
         'style-src': ['\'self\'', '\'unsafe-inline\''],

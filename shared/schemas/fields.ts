@@ -14,6 +14,7 @@ export const FIELD_GROUPS = [
   { id: 'budgets', section: 'spec', title: 'Targets', label: 'Budgets and limits' },
   { id: 'resistors', section: 'process', title: 'Process', label: 'Resistors' },
   { id: 'switches', section: 'process', title: 'Process', label: 'Switches and decoder' },
+  { id: 'switch-spread', section: 'process', title: 'Process', label: 'Switch spread and mismatch (this study)' },
   { id: 'compare', section: 'options', title: 'What to compare', label: 'Candidates and Monte Carlo' }
 ] as const satisfies readonly { id: string, section: FieldSection, title: string, label: string }[]
 
@@ -84,8 +85,8 @@ export const FIELDS: readonly FieldDef[] = [
   { ...proc('switchSkewS', 'switches', 'Switch timing skew', 'Worst mismatch in switching instants across bits.'), kind: 'quantity', units: SECONDS },
   { ...proc('switchChargeC', 'switches', 'Switch charge injection', 'Charge one switch injects when it toggles.'), kind: 'quantity', units: u('C', 'a charge', 'C', true, '1 fC') },
   { ...proc('switchAreaUm2', 'switches', 'Area per switch', 'Placed area of one switch.'), kind: 'quantity', units: UM2 },
-  { ...proc('switchSpreadPct', 'switches', 'Switch spread against resistors', 'How far switch on-resistance moves relative to the resistors over process and temperature (±).'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '20 %') },
-  { ...proc('switchMismatchPct', 'switches', 'Switch mismatch', 'σ of one switch’s on-resistance about its design value; falls as 1/√width.'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '1 %') },
+  { ...proc('switchSpreadPct', 'switch-spread', 'Switch spread against resistors', 'How far switch on-resistance moves relative to the resistors over process and temperature (±).'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '20 %') },
+  { ...proc('switchMismatchPct', 'switch-spread', 'Switch mismatch', 'σ of one switch’s on-resistance about its design value; falls as 1/√width.'), kind: 'quantity', units: u('percent', 'a percentage', '%', false, '1 %') },
   { ...proc('gateAreaUm2', 'switches', 'Area per decoder gate', 'Placed area of one decoder gate.'), kind: 'quantity', units: UM2 },
 
   { ...opt('topologies', 'Candidates', 'Architectures to compare.'), kind: 'multi', choices: EVALUATE_TOPOLOGIES.map(t => ({ value: t, label: TOPOLOGY_LABELS[t] })) },

@@ -78,8 +78,11 @@ describe('notes journey', () => {
     // back on the engineer's page the thread is resolved after a reload
     await engineer.reload()
     await engineer.getByTestId('study-notes').waitFor()
-    await engineer.getByLabel('All').check()
-    await expect.poll(() => engineer.locator('[data-thread]').first().getAttribute('data-resolved'), { timeout: 30_000 }).toBe('yes')
+    // a check that lands before the page has hydrated is lost: check again until the list answers
+    await expect.poll(async () => {
+      await engineer.getByLabel('All').check()
+      return await engineer.locator('[data-thread]').first().getAttribute('data-resolved', { timeout: 2_000 }).catch(() => null)
+    }, { timeout: 60_000 }).toBe('yes')
     await engineer.context().close()
   }, 300_000)
 })

@@ -70,6 +70,10 @@ describe('candidates: live comparison → Monte Carlo → revisions', () => {
     // Every headline number opens its derivation with the user's values substituted.
     await page.getByTestId('candidate-explain').waitFor()
     expect(await page.getByTestId('candidate-explain').textContent()).toContain('How the numbers of')
+    // A ladder names the switch design the engine chose for it, beside the other handlings (handbook §11).
+    await page.locator('[data-candidate="r2r-voltage"] button[aria-pressed]').click()
+    await expect.poll(() => page.getByTestId('switch-design').textContent()).toContain('Chosen by the engine')
+    await page.getByTestId('switch-design').screenshot({ path: `${SHOTS}/switch-design-1280.png` })
     await setField(page, 'INL target', '0.75 LSB')
     await expect.poll(() => page.getByTestId('source-live').isChecked()).toBe(true)
     await expect.poll(() => page.getByTestId('live-state').textContent(), { timeout: 20_000 }).toContain('up to date')

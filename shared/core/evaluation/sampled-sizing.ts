@@ -1,6 +1,6 @@
 /**
  * Sampled sizing and fast yields (handbook §4.9): the unit σ that meets the yield target, and the
- * yields at the drawn σ, from a fixed sample of SIZING_TRIALS circuits solved exactly by the
+ * yields at the drawn σ, from a fixed sample of sizingTrials(…) circuits solved exactly by the
  * candidate's own Monte Carlo sampler, so every deterministic error the engine models (switch
  * on-resistance and its compensation residual at the worst switch corner, the two-stage loading)
  * sits in the same trials as the random mismatch.

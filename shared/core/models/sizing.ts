@@ -190,13 +190,3 @@ export function sizeUnit(s: CandidateShape, spec: SizingSpec, process: SizingPro
     minSizeAreaUm2: minimum
   }
 }
-
-/**
- * The unit resistance (ohms) and per-unit relative σ (dimensionless, about the array mean) that
- * the sizing chose for a candidate: the values Monte Carlo sample circuits are drawn with.
- * A 2R element of two units has σ_u/√2; a single-element 2R has σ_u.
- */
-export function unitOhmAndSigma(s: CandidateShape, spec: SizingSpec, process: SizingProcess): { unitOhm: number, sigmaUnit: number } {
-  const sized = sizeUnit(s, spec, process)
-  return { unitOhm: sized.unitOhm, sigmaUnit: sized.sigmaUnit }
-}
